@@ -1,0 +1,4 @@
+export * from './school';
+export * from './user';
+export * from './session';
+export * from './sign-in-throttle';
