@@ -1,6 +1,6 @@
 import { DrizzleMySQLAdapter } from '@lucia-auth/adapter-drizzle';
 import type { Cookies } from '@sveltejs/kit';
-import { Lucia, TimeSpan, generateIdFromEntropySize, type Session, type User } from 'lucia';
+import { Lucia, TimeSpan, generateIdFromEntropySize, type Cookie, type Session, type User } from 'lucia';
 import { getDb } from '../db/client';
 import { session as sessionTable, user as userTable } from '../db/schema';
 
@@ -70,7 +70,7 @@ type CookieTarget = { cookies: Cookies; url: URL };
 
 // Secure only when the request came over https (adapter-node derives the protocol from ORIGIN or PROTOCOL_HEADER),
 // so that plain-http local serving keeps working while every https deployment gets Secure cookies.
-function write(event: CookieTarget, cookie: { name: string; value: string; attributes: Record<string, unknown> }) {
+function write(event: CookieTarget, cookie: Cookie) {
 	event.cookies.set(cookie.name, cookie.value, {
 		...cookie.attributes,
 		path: '/',
