@@ -1,0 +1,241 @@
+/**
+ * Compiles a (possibly faulted) circuit, a state and an optional test lamp into index-based arrays
+ * for the solver. Everything the settling loop does not change is fixed here once.
+ */
+import { SolveOptionError } from './errors';
+import { FUSE_TYPES, type Circuit, type NetElement } from './model';
+import { TEST_LAMP_WATTS } from './tables';
+import { makeSets, unite } from './union-find';
+
+/** Element codes of the compiled network. */
+export const enum Code {
+	Resistor = 0,
+	Ideal = 1,
+	Fuse = 2,
+	RelayNo = 3,
+	RelayNc = 4,
+	Coil = 5,
+	Diode = 6,
+	Source = 7,
+	Off = 8
+}
+
+/** A compiled network with its solver buffers. Internal to the engine. */
+export type Net = {
+	circuit: Circuit;
+	state: string | null;
+	/** Battery EMF in force, V. */
+	emf: number;
+	nNodes: number;
+	els: NetElement[];
+	code: Uint8Array;
+	ea: Int32Array;
+	eb: Int32Array;
+	/** Conductance in S (resistive codes), 0 otherwise. */
+	g: Float64Array;
+	/** Volts of sources and diode drops. */
+	ev: Float64Array;
+	/** Diode internal node per element (-1 for others). */
+	emid: Int32Array;
+	/** 1 where a node gets a 10 MΩ meter when it is part of the network. */
+	metered: Uint8Array;
+	baseParent: Int32Array;
+	fuses: Int32Array;
+	fuseRating: Float64Array;
+	relayPart: Int32Array;
+	relayNo: Int32Array;
+	relayNc: Int32Array;
+	relayCoil: Int32Array;
+	relay85: Int32Array;
+	relay86: Int32Array;
+	/** 1 when the relay coil is open or shorted: it stays released. */
+	relayDead: Uint8Array;
+	relayWelded: Uint8Array;
+	pullInMv: Int32Array;
+	dropOutMv: Int32Array;
+	diodes: Int32Array;
+	/** Battery and supply-part sources (battery first). */
+	sources: Int32Array;
+	lampEl: number;
+	lampOhms: number;
+};
+
+/** Resolves a lamp option to [node index, other end node index]. @throws SolveOptionError. */
+function lampEnds(c: Circuit, lamp: string): [number, number] {
+	const [where, to, extra] = lamp.split(':');
+	if (extra !== undefined || (to !== undefined && to !== 'B+' && to !== 'GND'))
+		throw new SolveOptionError('lamp', `lamp "${lamp}" must be POINT (to GND) or POINT:B+`);
+	const pt = c.points.find((p) => p.label === where);
+	const node = pt ? pt.node : where;
+	const i = c.nodeNames.indexOf(node);
+	if (i < 0 || i >= c.fileNodeCount)
+		throw new SolveOptionError('lamp', `lamp point "${where}" is not a labelled point or node of this circuit; points: ${c.points.map((p) => p.label).join(', ') || 'none'}`);
+	return [i, to === 'B+' ? 0 : 1];
+}
+
+/**
+ * Compiles a circuit for one state (null = defaults) and an optional lamp (`A` or `A:B+`).
+ * @throws SolveOptionError for an unknown state or lamp point.
+ */
+export function compileNet(c: Circuit, state: string | null | undefined, lamp: string | null | undefined): Net {
+	const st = state == null ? null : c.states.find((s) => s.name === state);
+	if (st === undefined)
+		throw new SolveOptionError('state', `unknown state "${state}"; this circuit's states are ${c.states.map((s) => s.name).join(', ') || 'none'}`);
+	const emf = st?.supply ?? c.supply.volts;
+	const els = c.elements.slice();
+	let lampEl = -1;
+	let lampOhms = 0;
+	if (lamp) {
+		const [a, b] = lampEnds(c, lamp);
+		lampOhms = (c.supply.volts * c.supply.volts) / TEST_LAMP_WATTS;
+		lampEl = els.length;
+		els.push({ id: 'lamp', pathId: null, kind: 'lamp', role: 'resistor', a, b, ohms: lampOhms, volts: 0, part: -1 });
+	}
+	const ne = els.length;
+	const nNodes = c.nodeNames.length;
+	const code = new Uint8Array(ne);
+	const ea = new Int32Array(ne);
+	const eb = new Int32Array(ne);
+	const g = new Float64Array(ne);
+	const ev = new Float64Array(ne);
+	const emid = new Int32Array(ne).fill(-1);
+	const baseParent = makeSets(nNodes);
+	const fuses: number[] = [];
+	const diodes: number[] = [];
+	const sources: number[] = [];
+	const relayIdx = new Map<number, number>();
+	const relayPart: number[] = [];
+	for (let i = 0; i < ne; i++) {
+		const e = els[i];
+		ea[i] = e.a;
+		eb[i] = e.b;
+		const p = e.part >= 0 ? c.parts[e.part] : null;
+		switch (e.role) {
+			case 'resistor': {
+				let ohms = e.ohms;
+				if (p && p.type === 'resistor' && st && st.resistors[p.id] !== undefined && e.ohms === p.ohms) ohms = st.resistors[p.id];
+				code[i] = Code.Resistor;
+				g[i] = 1 / ohms;
+				break;
+			}
+			case 'ideal':
+				code[i] = Code.Ideal;
+				break;
+			case 'fuse':
+				code[i] = Code.Fuse;
+				g[i] = 1 / e.ohms;
+				fuses.push(i);
+				break;
+			case 'switch': {
+				const setting = (st && st.switches[p!.id]) ?? p!.normally;
+				code[i] = e.stuck || setting === 'closed' ? Code.Ideal : Code.Off;
+				break;
+			}
+			case 'position': {
+				const setting = (st && st.switches[p!.id]) ?? p!.positions![0].name;
+				code[i] = setting === e.position ? Code.Ideal : Code.Off;
+				break;
+			}
+			case 'no':
+			case 'nc':
+			case 'coil': {
+				let r = relayIdx.get(e.part);
+				if (r === undefined) {
+					r = relayPart.length;
+					relayIdx.set(e.part, r);
+					relayPart.push(e.part);
+				}
+				code[i] = e.role === 'no' ? Code.RelayNo : e.role === 'nc' ? Code.RelayNc : Code.Coil;
+				if (e.role === 'coil') g[i] = 1 / e.ohms;
+				break;
+			}
+			case 'diode':
+				code[i] = Code.Diode;
+				g[i] = 1 / e.ohms;
+				ev[i] = e.volts;
+				emid[i] = e.mid!;
+				diodes.push(i);
+				break;
+			case 'source':
+				code[i] = Code.Source;
+				ev[i] = e.battery ? emf : e.volts;
+				sources.push(i);
+				break;
+		}
+		if (code[i] === Code.Ideal) unite(baseParent, e.a, e.b);
+	}
+	// relays: from the part list, so a relay with every element removed by a fault still reports
+	const nr = relayPart.length;
+	const relayNo = new Int32Array(nr).fill(-1);
+	const relayNc = new Int32Array(nr).fill(-1);
+	const relayCoil = new Int32Array(nr).fill(-1);
+	const relay85 = new Int32Array(nr);
+	const relay86 = new Int32Array(nr);
+	const relayDead = new Uint8Array(nr);
+	const relayWelded = new Uint8Array(nr);
+	const pullInMv = new Int32Array(nr);
+	const dropOutMv = new Int32Array(nr);
+	for (let r = 0; r < nr; r++) {
+		const p = c.parts[relayPart[r]];
+		relay85[r] = c.nodeNames.indexOf(`${p.id}.85`);
+		relay86[r] = c.nodeNames.indexOf(`${p.id}.86`);
+		pullInMv[r] = Math.round(p.pullIn! * 1000);
+		dropOutMv[r] = Math.round(p.dropOut! * 1000);
+		relayDead[r] = c.deadCoils.includes(p.id) ? 1 : 0;
+	}
+	for (let i = 0; i < ne; i++) {
+		const e = els[i];
+		if (e.role !== 'no' && e.role !== 'nc' && e.role !== 'coil') continue;
+		const r = relayIdx.get(e.part)!;
+		if (e.role === 'no') {
+			relayNo[r] = i;
+			if (e.stuck) relayWelded[r] = 1;
+		} else if (e.role === 'nc') relayNc[r] = i;
+		else {
+			relayCoil[r] = i;
+			if (e.dead) relayDead[r] = 1;
+		}
+	}
+	for (let r = 0; r < nr; r++) if (relayCoil[r] < 0) relayDead[r] = 1;
+	const metered = new Uint8Array(nNodes);
+	for (let i = 0; i < nNodes; i++) {
+		const n = c.nodeNames[i];
+		metered[i] = i !== 1 && !n.endsWith('#int') && !n.endsWith('#emf') ? 1 : 0;
+	}
+	const fuseRating = new Float64Array(fuses.length);
+	fuses.forEach((ei, k) => {
+		const p = c.parts[els[ei].part];
+		fuseRating[k] = FUSE_TYPES.has(p.type) ? p.rating! : Infinity;
+	});
+	return {
+		circuit: c,
+		state: st ? st.name : null,
+		emf,
+		nNodes,
+		els,
+		code,
+		ea,
+		eb,
+		g,
+		ev,
+		emid,
+		metered,
+		baseParent,
+		fuses: Int32Array.from(fuses),
+		fuseRating,
+		relayPart: Int32Array.from(relayPart),
+		relayNo,
+		relayNc,
+		relayCoil,
+		relay85,
+		relay86,
+		relayDead,
+		relayWelded,
+		pullInMv,
+		dropOutMv,
+		diodes: Int32Array.from(diodes),
+		sources: Int32Array.from(sources),
+		lampEl,
+		lampOhms
+	};
+}

@@ -1,0 +1,402 @@
+/**
+ * Results of a settled solve: rounded node volts, reading classes, part statuses and currents,
+ * element-level currents (ideal elements by Kirchhoff's current law, with the equal minimum-norm
+ * split where 0 Ω elements form a loop), the linear network, and dead-short loops.
+ */
+import { luFactor, luSolve } from './lu';
+import { contactClosed, elementAmps, type Config, type Work } from './mna';
+import { FUSE_TYPES, LOAD_TYPES } from './model';
+import { Code, type Net } from './netlist';
+import type { Settled } from './settle';
+import {
+	LOAD_ON_FRACTION,
+	LOAD_WEAK_FRACTION,
+	METER_OHMS,
+	READING_BAND_MV,
+	roundAmps,
+	roundVolts,
+	toMillivolts
+} from './tables';
+import type { ElementCurrent, LinearNetwork, Reads, SolveResult } from './types';
+import { findRoot, unite } from './union-find';
+
+/** Relay index of every element (-1 for non-relay elements). */
+export function relayOfElements(net: Net): Int32Array {
+	const out = new Int32Array(net.els.length).fill(-1);
+	for (let r = 0; r < net.relayPart.length; r++) {
+		if (net.relayNo[r] >= 0) out[net.relayNo[r]] = r;
+		if (net.relayNc[r] >= 0) out[net.relayNc[r]] = r;
+		if (net.relayCoil[r] >= 0) out[net.relayCoil[r]] = r;
+	}
+	return out;
+}
+
+/** True when element i is a 0 Ω element in place. */
+function isIdealOn(net: Net, cfg: Config, i: number, rel: Int32Array): boolean {
+	const c = net.code[i];
+	if (c === Code.Ideal) return true;
+	if (c === Code.RelayNo) return contactClosed(net, cfg, rel[i], false);
+	if (c === Code.RelayNc) return contactClosed(net, cfg, rel[i], true);
+	return false;
+}
+
+/** Fuse slot of every element (-1 for non-fuses). */
+function fuseSlots(net: Net): Int32Array {
+	const out = new Int32Array(net.els.length).fill(-1);
+	net.fuses.forEach((e, k) => (out[e] = k));
+	return out;
+}
+
+function diodeSlots(net: Net): Int32Array {
+	const out = new Int32Array(net.els.length).fill(-1);
+	net.diodes.forEach((e, k) => (out[e] = k));
+	return out;
+}
+
+/** True when element i conducts as a non-ideal element (resistance, intact fuse, conducting diode). */
+function resistiveOn(net: Net, cfg: Config, i: number, fs: Int32Array, ds: Int32Array): boolean {
+	const c = net.code[i];
+	if (c === Code.Resistor || c === Code.Coil) return true;
+	if (c === Code.Fuse) return !cfg.fuseOpen[fs[i]];
+	if (c === Code.Diode) return !!cfg.diodeOn[ds[i]];
+	return false;
+}
+
+/**
+ * Currents in A of every element from its a node to its b node: resistive elements by Ohm's law,
+ * sources delivering from − to + (positive while delivering), ideal elements by KCL within their
+ * merged node with the minimum-norm split (unit-weight Laplacian). Also returns the meter currents
+ * by merged node root (from the root node to GND).
+ */
+export function elementCurrents(s: Settled): { amps: Float64Array; meter: Float64Array } {
+	const { net, cfg, work: w } = s;
+	const ne = net.els.length;
+	const nn = net.nNodes;
+	const amps = new Float64Array(ne);
+	const inflow = new Float64Array(nn);
+	const rel = relayOfElements(net);
+	const fs = fuseSlots(net);
+	const ds = diodeSlots(net);
+	for (let i = 0; i < ne; i++) {
+		const c = net.code[i];
+		const a = net.ea[i];
+		const b = net.eb[i];
+		if (resistiveOn(net, cfg, i, fs, ds)) {
+			const I = elementAmps(net, w, i);
+			amps[i] = I;
+			inflow[b] += I;
+			inflow[a] -= I;
+		} else if (c === Code.Source) {
+			const I = -w.srcI[i];
+			amps[i] = I;
+			inflow[a] += I;
+			inflow[b] -= I;
+		}
+	}
+	const meter = new Float64Array(nn);
+	const seen = new Uint8Array(nn);
+	for (let i = 0; i < nn; i++) {
+		if (!net.metered[i] || w.gOf[i] === -2) continue;
+		const r = w.root[i];
+		if (w.gOf[r] < 0 || seen[r]) continue;
+		seen[r] = 1;
+		const I = w.V[i] / METER_OHMS;
+		meter[r] = I;
+		inflow[r] -= I;
+		inflow[1] += I;
+	}
+	// ideal elements: per merged node, solve the unit Laplacian L·phi = inflow
+	const members = new Map<number, number[]>();
+	const edges = new Map<number, number[]>();
+	for (let i = 0; i < ne; i++) {
+		if (!isIdealOn(net, cfg, i, rel)) continue;
+		const r = w.root[net.ea[i]];
+		let list = edges.get(r);
+		if (!list) edges.set(r, (list = []));
+		list.push(i);
+	}
+	if (edges.size === 0) return { amps, meter };
+	for (let i = 0; i < nn; i++) {
+		const r = w.root[i];
+		if (!edges.has(r)) continue;
+		let m = members.get(r);
+		if (!m) members.set(r, (m = []));
+		m.push(i);
+	}
+	for (const [r, es] of edges) {
+		const mem = members.get(r)!;
+		const m = mem.length;
+		const local = new Map(mem.map((v, k) => [v, k]));
+		const k = m - 1;
+		if (k === 0) continue;
+		const L = new Float64Array(k * k);
+		const rhs = new Float64Array(k);
+		for (const e of es) {
+			const a = local.get(net.ea[e])!;
+			const b = local.get(net.eb[e])!;
+			if (a === b) continue;
+			if (a < k) L[a * k + a] += 1;
+			if (b < k) L[b * k + b] += 1;
+			if (a < k && b < k) {
+				L[a * k + b] -= 1;
+				L[b * k + a] -= 1;
+			}
+		}
+		for (let q = 0; q < k; q++) rhs[q] = inflow[mem[q]];
+		const perm = new Int32Array(k);
+		const phi = new Float64Array(m);
+		luFactor(L, k, perm);
+		luSolve(L, k, perm, rhs, phi);
+		phi[k] = 0;
+		for (const e of es) amps[e] = phi[local.get(net.ea[e])!] - phi[local.get(net.eb[e])!];
+	}
+	return { amps, meter };
+}
+
+/** Which nodes have a conducting path (meters excluded) to B+, GND or a source terminal. */
+export function reachableNodes(s: Settled): Uint8Array {
+	const { net, cfg, work: w } = s;
+	const nn = net.nNodes;
+	const p = w.parent.slice();
+	const fs = fuseSlots(net);
+	const ds = diodeSlots(net);
+	const seeds: number[] = [0, 1];
+	for (let i = 0; i < net.els.length; i++) {
+		if (resistiveOn(net, cfg, i, fs, ds)) {
+			unite(p, net.ea[i], net.eb[i]);
+			if (net.code[i] === Code.Diode) unite(p, net.ea[i], net.emid[i]);
+		} else if (net.code[i] === Code.Source) seeds.push(net.ea[i], net.eb[i]);
+	}
+	const live = new Uint8Array(nn);
+	for (const sd of seeds) live[findRoot(p, sd)] = 1;
+	const out = new Uint8Array(nn);
+	for (let i = 0; i < nn; i++) out[i] = live[findRoot(p, i)];
+	return out;
+}
+
+/** Reading class from unrounded volts, the battery EMF in force and reachability (spec, bounds inclusive). */
+export function readingClass(volts: number, emf: number, reachable: boolean): Reads {
+	if (!reachable) return 'floating';
+	const mv = toMillivolts(volts);
+	if (Math.abs(mv - toMillivolts(emf)) <= READING_BAND_MV) return 'supply';
+	if (Math.abs(mv) <= READING_BAND_MV) return 'ground';
+	return 'partial';
+}
+
+/** Load status by the spec's rule: rounded current against 80 % / 25 % of emf / ohms. */
+export function loadStatus(amps: number, emf: number, ohms: number): 'on' | 'weak' | 'off' {
+	const ratio = roundAmps(amps) / (emf / ohms);
+	if (ratio >= LOAD_ON_FRACTION - 1e-12) return 'on';
+	if (ratio >= LOAD_WEAK_FRACTION - 1e-12) return 'weak';
+	return 'off';
+}
+
+/** Builds the spec's result object (keys in file order) from a settled solve. */
+export function buildResult(s: Settled, fault: string | null, needAmps: boolean): SolveResult {
+	const { net, cfg, work: w } = s;
+	const c = net.circuit;
+	const nodes: Record<string, number> = {};
+	for (let i = 0; i < c.fileNodeCount; i++) nodes[c.nodeNames[i]] = roundVolts(w.V[i]);
+	const reach = reachableNodes(s);
+	const points: Record<string, { volts: number; reads: Reads }> = {};
+	for (const pt of c.points) {
+		const i = c.nodeNames.indexOf(pt.node);
+		points[pt.label] = { volts: roundVolts(w.V[i]), reads: readingClass(w.V[i], net.emf, !!reach[i]) };
+	}
+	const cur = needAmps ? elementCurrents(s).amps : null;
+	const fs = fuseSlots(net);
+	const ds = diodeSlots(net);
+	const byPart: number[][] = c.parts.map(() => []);
+	for (let i = 0; i < net.els.length; i++) if (net.els[i].part >= 0) byPart[net.els[i].part].push(i);
+	const ampsOf = (i: number): number => {
+		if (cur) return Math.abs(cur[i]);
+		return resistiveOn(net, cfg, i, fs, ds) ? Math.abs(elementAmps(net, w, i)) : 0;
+	};
+	const parts: Record<string, { status: string | null; amps: number }> = {};
+	c.parts.forEach((p, pi) => {
+		const els = byPart[pi];
+		let status: string | null = null;
+		let amps = 0;
+		if (FUSE_TYPES.has(p.type)) {
+			const e = els.find((i) => net.code[i] === Code.Fuse);
+			const open = e === undefined || cfg.fuseOpen[fs[e]] === 1;
+			status = open ? (p.type === 'breaker' ? 'tripped' : 'blown') : 'ok';
+			amps = open ? 0 : ampsOf(e!);
+		} else if (p.type === 'relay') {
+			const r = net.relayPart.indexOf(pi);
+			const st = cfg.relay[r];
+			status = st === 2 ? 'chattering' : st === 1 ? 'energized' : 'released';
+			const coil = net.relayCoil[r];
+			amps = coil >= 0 ? ampsOf(coil) : 0;
+		} else if (p.type === 'switch') {
+			if (p.positions) {
+				const st = net.state ? c.states.find((x) => x.name === net.state) : undefined;
+				status = st?.switches[p.id] ?? p.positions[0].name;
+				for (const e of els) if (net.code[e] === Code.Ideal) amps = Math.max(amps, cur ? Math.abs(cur[e]) : 0);
+			} else {
+				const e = els[0];
+				const closed = e !== undefined && net.code[e] === Code.Ideal;
+				status = closed ? 'closed' : 'open';
+				amps = closed && cur ? Math.abs(cur[e]) : 0;
+			}
+		} else if (LOAD_TYPES.has(p.type)) {
+			const e = els[0];
+			amps = e !== undefined ? ampsOf(e) : 0;
+			status = loadStatus(amps, net.emf, p.ohms!);
+		} else if (p.type === 'diode') {
+			const e = els[0];
+			const on = e !== undefined && cfg.diodeOn[ds[e]] === 1;
+			status = on ? 'conducting' : 'blocking';
+			amps = on ? ampsOf(e) : 0;
+		} else if (p.type === 'supply') {
+			const e = els[0];
+			amps = e !== undefined ? Math.abs(w.srcI[e]) : 0;
+		} else if (p.type === 'resistor') {
+			amps = els[0] !== undefined ? ampsOf(els[0]) : 0;
+		} else if (p.type === 'connector' || p.type === 'ground') {
+			for (const e of els) amps = Math.max(amps, net.code[e] === Code.Ideal ? (cur ? Math.abs(cur[e]) : 0) : ampsOf(e));
+		}
+		parts[p.id] = { status, amps: roundAmps(amps) };
+	});
+	const result: SolveResult = { state: net.state, fault, nodes, points, parts };
+	if (net.lampEl >= 0) {
+		const I = Math.abs(elementAmps(net, w, net.lampEl));
+		const st = loadStatus(I, net.emf, net.lampOhms);
+		result.lamp = st === 'on' ? 'lit' : st === 'weak' ? 'dim' : 'dark';
+	}
+	return result;
+}
+
+/** Element-level currents of a settled solve (every conducting element, open ones omitted). */
+export function elementList(s: Settled): ElementCurrent[] {
+	const { net, cfg, work: w } = s;
+	const names = net.circuit.nodeNames;
+	const { amps, meter } = elementCurrents(s);
+	const rel = relayOfElements(net);
+	const fs = fuseSlots(net);
+	const ds = diodeSlots(net);
+	const out: ElementCurrent[] = [];
+	for (let i = 0; i < net.els.length; i++) {
+		const e = net.els[i];
+		const c = net.code[i];
+		const kind = e.kind;
+		if (isIdealOn(net, cfg, i, rel)) out.push({ id: e.id, from: names[e.a], to: names[e.b], amps: amps[i], ohms: null, kind });
+		else if (c === Code.Diode) {
+			if (!cfg.diodeOn[ds[i]]) continue;
+			const mid = names[e.mid!];
+			out.push({ id: e.id, from: names[e.a], to: mid, amps: amps[i], ohms: e.ohms, kind });
+			out.push({ id: `${e.id}#drop`, from: names[e.b], to: mid, amps: -amps[i], ohms: null, kind: 'source' });
+		} else if (resistiveOn(net, cfg, i, fs, ds))
+			out.push({ id: e.id, from: names[e.a], to: names[e.b], amps: amps[i], ohms: 1 / net.g[i], kind });
+		else if (c === Code.Source) out.push({ id: e.id, from: names[e.b], to: names[e.a], amps: amps[i], ohms: null, kind: 'source' });
+	}
+	for (let r = 0; r < net.nNodes; r++)
+		if (w.root[r] === r && net.metered[r] && w.gOf[r] >= 0)
+			out.push({ id: `meter:${names[r]}`, from: names[r], to: 'GND', amps: meter[r], ohms: METER_OHMS, kind: 'meter' });
+	return out;
+}
+
+/** Unrounded volts of every node (file and internal) by name. */
+export function voltsByName(s: Settled): Record<string, number> {
+	const out: Record<string, number> = {};
+	const names = s.net.circuit.nodeNames;
+	for (let i = 0; i < names.length; i++) out[names[i]] = s.work.V[i];
+	return out;
+}
+
+/** The linear network of the final configuration (see `LinearNetwork`). */
+export function linearNetwork(s: Settled): LinearNetwork {
+	const { net, cfg, work: w } = s;
+	const names = net.circuit.nodeNames;
+	const nameOf = (i: number) => names[w.gOf[i] === -2 ? i : w.root[i]];
+	const fs = fuseSlots(net);
+	const ds = diodeSlots(net);
+	const nodeSet: string[] = [];
+	const nodeOf: Record<string, string> = {};
+	const voltages: Record<string, number> = {};
+	for (let i = 0; i < net.nNodes; i++) {
+		if (w.gOf[i] === -2) continue;
+		const nm = nameOf(i);
+		nodeOf[names[i]] = nm;
+		if (!(nm in voltages)) {
+			nodeSet.push(nm);
+			voltages[nm] = w.V[i];
+		}
+	}
+	const resistors: LinearNetwork['resistors'] = [];
+	const vsources: LinearNetwork['vsources'] = [];
+	for (let i = 0; i < net.els.length; i++) {
+		const e = net.els[i];
+		if (resistiveOn(net, cfg, i, fs, ds)) {
+			const b = net.code[i] === Code.Diode ? nameOf(e.mid!) : nameOf(e.b);
+			const a = nameOf(e.a);
+			if (a !== b) resistors.push({ id: e.id, a, b, ohms: 1 / net.g[i] });
+			if (net.code[i] === Code.Diode) vsources.push({ id: `${e.id}#drop`, plus: nameOf(e.mid!), minus: nameOf(e.b), volts: net.ev[i] });
+		} else if (net.code[i] === Code.Source && w.row[i] >= 0)
+			vsources.push({ id: e.id, plus: nameOf(e.a), minus: nameOf(e.b), volts: net.ev[i] });
+	}
+	const metered = new Set<string>();
+	for (let i = 0; i < net.nNodes; i++) {
+		if (!net.metered[i] || w.gOf[i] === -2 || w.gOf[w.root[i]] < 0) continue;
+		const nm = nameOf(i);
+		if (metered.has(nm)) continue;
+		metered.add(nm);
+		resistors.push({ id: `meter:${nm}`, a: nm, b: 'GND', ohms: METER_OHMS });
+	}
+	return { nodes: nodeSet, resistors, vsources, voltages, nodeOf };
+}
+
+/**
+ * The 0 Ω elements on the shortest loop closed by the dead-short source: a 0-1 breadth-first search
+ * from its + node to its − node over 0 Ω elements (cost 1) and sources already in place (cost 0).
+ * Returns path ids, parts first then wires, in file order.
+ */
+export function deadShortElements(s: Settled): string[] {
+	const { net, cfg, work: w } = s;
+	const src = w.deadSource;
+	const rel = relayOfElements(net);
+	const nn = net.nNodes;
+	const adj: { to: number; el: number; cost: number }[][] = Array.from({ length: nn }, () => []);
+	for (let i = 0; i < net.els.length; i++) {
+		if (i === src) continue;
+		const a = net.ea[i];
+		const b = net.eb[i];
+		if (isIdealOn(net, cfg, i, rel)) {
+			adj[a].push({ to: b, el: i, cost: 1 });
+			adj[b].push({ to: a, el: i, cost: 1 });
+		} else if (net.code[i] === Code.Source && w.row[i] >= 0) {
+			adj[a].push({ to: b, el: -1, cost: 0 });
+			adj[b].push({ to: a, el: -1, cost: 0 });
+		}
+	}
+	const dist = new Float64Array(nn).fill(Infinity);
+	const via = new Int32Array(nn).fill(-1);
+	const prev = new Int32Array(nn).fill(-1);
+	const start = net.ea[src];
+	const goal = net.eb[src];
+	dist[start] = 0;
+	const dq: number[] = [start];
+	while (dq.length) {
+		const u = dq.shift()!;
+		for (const { to, el, cost } of adj[u]) {
+			const nd = dist[u] + cost;
+			if (nd < dist[to]) {
+				dist[to] = nd;
+				via[to] = el;
+				prev[to] = u;
+				if (cost === 0) dq.unshift(to);
+				else dq.push(to);
+			}
+		}
+	}
+	const used = new Set<number>();
+	for (let v = goal; v !== start && prev[v] >= 0; v = prev[v]) if (via[v] >= 0) used.add(via[v]);
+	const ids: string[] = [];
+	for (const i of [...used].sort((x, y) => x - y)) {
+		const id = net.els[i].pathId ?? net.els[i].id;
+		if (!ids.includes(id)) ids.push(id);
+	}
+	return ids;
+}
+
+export { roundVolts };
