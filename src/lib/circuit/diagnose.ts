@@ -1,6 +1,120 @@
-import type { Circuit } from './model';
-import type { Diagnosis, Observation } from './types';
-/** Diagnosis (in progress). */
-export function diagnose(_c: Circuit, _o: Observation[]): Diagnosis {
-	throw new Error('diagnosis not committed yet');
+/**
+ * Diagnosis: which faults of the standard list reproduce the observations, and which labelled point
+ * in which state splits those candidates best (least expected candidates left, Σ nᵢ² / N).
+ */
+import { ObservationError } from './errors';
+import { applyFault, formatFault, standardFaults } from './faults';
+import { FUSE_TYPES, LOAD_TYPES, type Circuit, type Part } from './model';
+import { compileNet } from './netlist';
+import { buildResult } from './results';
+import { settle } from './settle';
+import type { Diagnosis, Observation, SolveResult } from './types';
+
+/** Statuses a part can be observed in, or null when it has none. */
+export function statusesOf(p: Part): string[] | null {
+	if (p.type === 'breaker') return ['ok', 'tripped'];
+	if (FUSE_TYPES.has(p.type)) return ['ok', 'blown'];
+	if (p.type === 'relay') return ['energized', 'released', 'chattering'];
+	if (p.type === 'switch') return p.positions ? p.positions.map((x) => x.name) : ['open', 'closed'];
+	if (LOAD_TYPES.has(p.type)) return ['on', 'weak', 'off'];
+	if (p.type === 'diode') return ['conducting', 'blocking'];
+	return null;
+}
+
+/** Checks observations against a circuit. @throws ObservationError naming the missing state, part, point or status. */
+export function checkObservations(c: Circuit, observations: Observation[]): void {
+	for (const o of observations) {
+		if (!c.states.some((s) => s.name === o.state))
+			throw new ObservationError(`unknown state "${o.state}"; this circuit's states are ${c.states.map((s) => s.name).join(', ') || 'none'}`);
+		for (const [id, st] of Object.entries(o.parts)) {
+			const p = c.parts.find((x) => x.id === id);
+			if (!p) {
+				const isPoint = c.points.some((x) => x.label === id);
+				throw new ObservationError(
+					isPoint ? `point ${id} reads one of supply, ground, partial, floating, not "${st}"` : `unknown part "${id}" in state ${o.state}`
+				);
+			}
+			const allowed = statusesOf(p);
+			if (!allowed) throw new ObservationError(`${id} is a ${p.type}, which has no status to observe`);
+			if (!allowed.includes(st)) throw new ObservationError(`${id} (a ${p.type}) has no status "${st}"; use one of ${allowed.join(', ')}`);
+		}
+		for (const id of Object.keys(o.points))
+			if (!c.points.some((x) => x.label === id)) throw new ObservationError(`unknown point "${id}" in state ${o.state}; points: ${c.points.map((x) => x.label).join(', ')}`);
+	}
+}
+
+type Outcome = SolveResult | null; // null = dead short
+
+function matches(r: Outcome, o: Observation): boolean {
+	if (!r) return false;
+	for (const id in o.parts) if (r.parts[id].status !== o.parts[id]) return false;
+	for (const id in o.points) if (r.points[id].reads !== o.points[id]) return false;
+	return true;
+}
+
+const OUTCOME_ORDER = ['supply', 'ground', 'partial', 'floating', 'dead-short'];
+
+/**
+ * Candidates reproducing every observation (`none` first when the fault-free circuit does, then the
+ * standard list in order; a dead short reproduces nothing) and the next best test: the labelled point
+ * and state minimising Σ nᵢ² / N over its reading classes (ties: state order, then point order);
+ * null when fewer than two candidates remain. Outcomes list the candidates by reading class
+ * (`dead-short` for a candidate that is a dead short in that state).
+ * @throws ObservationError for observations that do not fit the circuit.
+ */
+export function diagnose(c: Circuit, observations: Observation[]): Diagnosis {
+	checkObservations(c, observations);
+	const faults = [null, ...standardFaults(c)];
+	const stateNames = c.states.map((s) => s.name);
+	const cache = new Map<string, Outcome>();
+	const circuits = new Map<number, Circuit>();
+	const outcome = (fi: number, state: string): Outcome => {
+		const key = `${fi}|${state}`;
+		if (cache.has(key)) return cache.get(key)!;
+		let fc = circuits.get(fi);
+		if (!fc) {
+			const f = faults[fi];
+			fc = f ? applyFault(c, f) : c;
+			circuits.set(fi, fc);
+		}
+		const s = settle(compileNet(fc, state, null));
+		const r = s.dead ? null : buildResult(s, fc.fault, false);
+		cache.set(key, r);
+		return r;
+	};
+	const cand: number[] = [];
+	for (let fi = 0; fi < faults.length; fi++) {
+		let ok = true;
+		for (const o of observations)
+			if (!matches(outcome(fi, o.state), o)) {
+				ok = false;
+				break;
+			}
+		if (ok) cand.push(fi);
+	}
+	const names = cand.map((fi) => (faults[fi] ? formatFault(faults[fi]!) : 'none'));
+	if (cand.length < 2) return { candidates: names, next_test: null };
+	let best: Diagnosis['next_test'] = null;
+	const N = cand.length;
+	for (const state of stateNames) {
+		const rs = cand.map((fi) => outcome(fi, state));
+		for (const pt of c.points) {
+			const groups = new Map<string, string[]>();
+			rs.forEach((r, k) => {
+				const cls = r ? r.points[pt.label].reads : 'dead-short';
+				let g = groups.get(cls);
+				if (!g) groups.set(cls, (g = []));
+				g.push(names[k]);
+			});
+			let sum = 0;
+			for (const g of groups.values()) sum += g.length * g.length;
+			const expected = sum / N;
+			if (!best || expected < best.expected_left - 1e-12) {
+				const outcomes: Record<string, string[]> = {};
+				for (const k of OUTCOME_ORDER) if (groups.has(k)) outcomes[k] = groups.get(k)!;
+				best = { state, point: pt.label, expected_left: expected, outcomes };
+			}
+		}
+	}
+	return { candidates: names, next_test: best };
 }
