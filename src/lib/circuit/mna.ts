@@ -111,7 +111,7 @@ export function solveLinear(net: Net, cfg: Config, w: Work): boolean {
 	}
 	for (let i = 0; i < nn; i++) {
 		root[i] = findRoot(parent, i);
-		gOf[i] = -3;
+		gOf[i] = net.dormant[i] ? -2 : -3;
 	}
 	// dormant diode midpoints
 	const nd = net.diodes.length;

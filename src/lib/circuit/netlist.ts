@@ -39,6 +39,8 @@ export type Net = {
 	emid: Int32Array;
 	/** 1 where a node gets a 10 MΩ meter when it is part of the network. */
 	metered: Uint8Array;
+	/** 1 for an internal node no element touches. */
+	dormant: Uint8Array;
 	baseParent: Int32Array;
 	fuses: Int32Array;
 	fuseRating: Float64Array;
@@ -202,6 +204,14 @@ export function compileNet(c: Circuit, state: string | null | undefined, lamp: s
 		const n = c.nodeNames[i];
 		metered[i] = i !== 1 && !n.endsWith('#int') && !n.endsWith('#emf') ? 1 : 0;
 	}
+	// internal nodes that no element touches (a removed diode's midpoint) stay out of the matrix
+	const dormant = new Uint8Array(nNodes);
+	for (let i = c.fileNodeCount; i < nNodes; i++) dormant[i] = metered[i] ? 0 : 1;
+	for (let i = 0; i < ne; i++) {
+		dormant[ea[i]] = 0;
+		dormant[eb[i]] = 0;
+		if (emid[i] >= 0) dormant[emid[i]] = 0;
+	}
 	const fuseRating = new Float64Array(fuses.length);
 	fuses.forEach((ei, k) => {
 		const p = c.parts[els[ei].part];
@@ -220,6 +230,7 @@ export function compileNet(c: Circuit, state: string | null | undefined, lamp: s
 		ev,
 		emid,
 		metered,
+		dormant,
 		baseParent,
 		fuses: Int32Array.from(fuses),
 		fuseRating,
