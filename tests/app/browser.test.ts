@@ -1,0 +1,110 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { mkdirSync } from 'node:fs';
+import { randomBytes } from 'node:crypto';
+import type { BrowserContext, Page } from 'playwright-core';
+import { APP_URL } from '../helpers/app';
+import { launchBrowser } from '../helpers/browser';
+import { DEMO_PASSWORD } from '../../src/lib/server/seed/demo';
+
+const SHOTS = 'screenshots';
+const DESKTOP = { width: 1280, height: 800 };
+const PHONE = { width: 360, height: 780 };
+
+let context: BrowserContext;
+let close: () => Promise<void>;
+
+beforeAll(async () => {
+	mkdirSync(SHOTS, { recursive: true });
+	({ context, close } = await launchBrowser());
+});
+afterAll(async () => close?.());
+
+async function shoot(page: Page, name: string) {
+	for (const [label, size] of [['desktop', DESKTOP], ['phone', PHONE]] as const) {
+		await page.setViewportSize(size);
+		await page.screenshot({ path: `${SHOTS}/${name}-${label}.png`, fullPage: true });
+	}
+	await page.setViewportSize(DESKTOP);
+}
+
+async function signInWithForm(page: Page, email: string, password: string) {
+	await page.goto(`${APP_URL}/signin`);
+	await page.getByLabel('E-mail').fill(email);
+	await page.getByLabel('Password').fill(password);
+	await page.getByRole('button', { name: 'Sign in' }).click();
+	await page.waitForURL(`${APP_URL}/home`);
+}
+
+const newEmail = `newcomer-${randomBytes(3).toString('hex')}@harrowcreek.example`;
+const newPassword = 'voltage drop under load';
+
+describe('in the browser (Chromium)', () => {
+	it('signs up, lands on the learner home, is refused the site-admin page, signs out', async () => {
+		const page = await context.newPage();
+		await page.goto(APP_URL);
+		await expect.poll(() => page.getByRole('link', { name: 'Create an account' }).first().isVisible()).toBe(true);
+		await shoot(page, 'landing');
+
+		await page.goto(`${APP_URL}/signup`);
+		await page.getByLabel('Your name').fill('Petra Lindqvist-Moore');
+		await page.getByLabel('E-mail').fill(newEmail);
+		await page.getByLabel('Password').fill(newPassword);
+		// The hidden time-zone field is filled from the browser's Intl (the context runs in America/Denver).
+		await expect.poll(() => page.locator('input[name=timeZone]').inputValue()).toBe('America/Denver');
+		await page.getByRole('button', { name: 'Create account' }).click();
+		await page.waitForURL(`${APP_URL}/home`);
+		await expect.poll(() => page.getByRole('heading', { level: 1 }).textContent()).toBe('Welcome, Petra');
+		expect(await page.getByText('America/Denver').count()).toBeGreaterThan(0);
+		expect(await page.getByRole('link', { name: 'People and roles' }).count()).toBe(0);
+		await shoot(page, 'home');
+
+		const refused = await page.goto(`${APP_URL}/admin/users`);
+		expect(refused?.status()).toBe(403);
+		expect(await page.getByRole('heading', { level: 1 }).textContent()).toBe('Not for your account');
+
+		await page.goto(`${APP_URL}/home`);
+		await page.getByRole('navigation', { name: 'Main' }).getByRole('button', { name: 'Sign out' }).first().click();
+		await page.waitForURL(`${APP_URL}/`);
+		const afterSignOut = await page.goto(`${APP_URL}/home`);
+		expect(new URL(page.url()).pathname).toBe('/signin');
+		expect(afterSignOut?.status()).toBe(200);
+		await shoot(page, 'signin');
+		await page.close();
+	});
+
+	it('shows a wrong password message on the sign-in form and keeps the e-mail', async () => {
+		const page = await context.newPage();
+		await page.goto(`${APP_URL}/signin`);
+		await page.getByLabel('E-mail').fill(newEmail);
+		await page.getByLabel('Password').fill('not my password at all');
+		await page.getByRole('button', { name: 'Sign in' }).click();
+		await expect.poll(() => page.getByRole('alert').textContent()).toContain('do not match an account');
+		expect(await page.getByLabel('E-mail').inputValue()).toBe(newEmail);
+		expect(await page.getByLabel('Password').inputValue()).toBe('');
+		await page.close();
+	});
+
+	it('lets a site admin grant the author role', async () => {
+		const page = await context.newPage();
+		await signInWithForm(page, 'siteadmin@harrowcreek.example', DEMO_PASSWORD);
+		await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'People and roles' }).first().click();
+		await page.waitForURL(`${APP_URL}/admin/users`);
+		await page.getByLabel('Search').fill(newEmail);
+		await page.getByRole('button', { name: 'Search' }).click();
+		await page.waitForURL((url) => url.searchParams.get('q') === newEmail);
+		const row = page.locator(`li[data-email="${newEmail}"]`);
+		await expect.poll(() => row.count()).toBe(1);
+		await row.getByRole('combobox').selectOption('author');
+		await row.getByRole('button', { name: 'Grant' }).click();
+		await expect.poll(() => row.getByRole('list', { name: /Roles of/ }).textContent()).toContain('Author');
+		await shoot(page, 'people-and-roles');
+
+		// The new author sees it too, after signing in.
+		const second = await launchBrowser();
+		const p2 = await second.context.newPage();
+		await signInWithForm(p2, newEmail, newPassword);
+		expect(await p2.getByRole('list', { name: 'Your roles' }).textContent()).toContain('Author');
+		await second.close();
+		await page.close();
+	});
+});
