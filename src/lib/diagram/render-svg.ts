@@ -33,7 +33,8 @@ export const OVERLAY_STYLES = [
 	{ colour: PALETTE.ok, dash: '6 3', width: 7 }
 ] as const;
 
-export type OverlaySet = { name: string; elements: string[] };
+/** A named set of elements to outline; `style` picks an entry of OVERLAY_STYLES (default: the set's position). */
+export type OverlaySet = { name: string; elements: string[]; style?: number };
 
 export const MONO = `'JetBrains Mono', ui-monospace, 'DejaVu Sans Mono', monospace`;
 export const SANS = `'Source Sans 3', system-ui, 'DejaVu Sans', sans-serif`;
@@ -108,7 +109,7 @@ function haloForBox(b: { x: number; y: number; w: number; h: number }, style: (t
 
 /** The halo markup of one overlay set: wires by id, parts (or a relay's coil/contact, a cavity) by id. */
 export function overlayMarkup(d: Drawing, set: OverlaySet, index: number): string {
-	const style = OVERLAY_STYLES[index % OVERLAY_STYLES.length];
+	const style = OVERLAY_STYLES[(set.style ?? index) % OVERLAY_STYLES.length];
 	const want = new Set(set.elements);
 	let out = '';
 	for (const w of d.wires) if (want.has(w.id)) out += haloForWire(w, style);
