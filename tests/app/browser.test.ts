@@ -58,6 +58,14 @@ describe('in the browser (Chromium)', () => {
 		expect(await page.getByRole('link', { name: 'People and roles' }).count()).toBe(0);
 		await shoot(page, 'home');
 
+		// On a phone the navigation folds into a menu.
+		await page.setViewportSize(PHONE);
+		expect(await page.getByRole('navigation', { name: 'Main' }).first().isVisible()).toBe(false);
+		await page.getByText('Menu', { exact: true }).click();
+		await expect.poll(() => page.locator('details nav').getByRole('link', { name: 'Profile' }).isVisible()).toBe(true);
+		await page.screenshot({ path: `${SHOTS}/menu-phone.png` });
+		await page.setViewportSize(DESKTOP);
+
 		const refused = await page.goto(`${APP_URL}/admin/users`);
 		expect(refused?.status()).toBe(403);
 		expect(await page.getByRole('heading', { level: 1 }).textContent()).toBe('Not for your account');
