@@ -231,6 +231,38 @@ function layoutOnce(c: DiagramCircuit, opts: LayoutOptions, gap: number): Drawin
 		}
 	}
 	const dOf = (p: DiagramPart, pin: string) => dist.get(nodeOfKey(pinKey(p, pin))) ?? 1e9;
+	// Return nodes: GND and every node with a ground part. The walk never goes down through them.
+	const groundNodes = new Set<string>(['GND']);
+	for (const p of c.parts) if (p.type === 'ground') groundNodes.add(nodeOfKey(p.id));
+	const distG = new Map<string, number>();
+	{
+		const queue = [...groundNodes];
+		for (const g of queue) distG.set(g, 0);
+		while (queue.length) {
+			const n = queue.shift()!;
+			const d = distG.get(n)!;
+			for (const { part } of onNode.get(n) ?? []) {
+				for (const pin of listPins(part)) {
+					const m = nodeOfKey(pinKey(part, pin));
+					if (!distG.has(m)) {
+						distG.set(m, d + 1);
+						queue.push(m);
+					}
+				}
+			}
+		}
+	}
+	/** Lower is nearer the feed: distance from B+ minus distance from ground. */
+	const feedScore = (p: DiagramPart, pin: string) => {
+		const n = nodeOfKey(pinKey(p, pin));
+		return (dist.get(n) ?? 1e6) - (distG.get(n) ?? 1e6);
+	};
+	const entersFromReturn = (q: DiagramPart, qp: string) => {
+		const pins = listPins(q);
+		if (pins.length !== 2 || q.type === 'supply') return false;
+		const other = pins[0] === qp ? pins[1] : pins[0];
+		return feedScore(q, qp) > feedScore(q, other);
+	};
 
 	// --- Placement: lanes (columns) in an ordered list, rows from the top.
 	const order: number[] = [];
@@ -254,7 +286,7 @@ function layoutOnce(c: DiagramCircuit, opts: LayoutOptions, gap: number): Drawin
 
 	const orient = (part: DiagramPart, entry: string | null): Set<string> => {
 		const pins = listPins(part);
-		const byD = (a: string, b: string) => dOf(part, a) - dOf(part, b) || pins.indexOf(a) - pins.indexOf(b);
+		const byD = (a: string, b: string) => feedScore(part, a) - feedScore(part, b) || pins.indexOf(a) - pins.indexOf(b);
 		switch (part.type) {
 			case 'relay': {
 				const coilTop = entry === '85' || entry === '86' ? entry : ['86', '85'].sort(byD)[0];
@@ -356,11 +388,14 @@ function layoutOnce(c: DiagramCircuit, opts: LayoutOptions, gap: number): Drawin
 		for (const pin of childBearing) {
 			const li = Math.max(0, lanesOf.findIndex((l) => l.includes(pin)));
 			let first = part.type !== 'supply' || pin !== '+';
-			const here = onNode.get(nodeOfKey(pinKey(part, pin))) ?? [];
+			const nodeName = nodeOfKey(pinKey(part, pin));
+			if (groundNodes.has(nodeName)) continue;
+			const here = onNode.get(nodeName) ?? [];
 			// A splice on this node comes next; the node's other parts hang below the splice.
 			const splices = part.type === 'splice' ? [] : here.filter(({ part: q }) => q.type === 'splice');
 			for (const { part: q, pin: qp } of splices.length ? splices : here) {
 				if (q.id === part.id || q.type === 'ground') continue;
+				if (!placed.has(q.id) && entersFromReturn(q, qp)) continue;
 				if (!placed.has(q.id)) {
 					const lane = me.lanes[li];
 					const useLane = first && freeAt(lane, me.row + 1) ? lane : null;
@@ -390,7 +425,7 @@ function layoutOnce(c: DiagramCircuit, opts: LayoutOptions, gap: number): Drawin
 	for (const p of c.parts) {
 		if (p.type === 'ground' || expanded.has(p.id)) continue;
 		const pins = listPins(p);
-		const entry = pins.slice().sort((a, b) => dOf(p, a) - dOf(p, b))[0] ?? null;
+		const entry = pins.slice().sort((a, b) => feedScore(p, a) - feedScore(p, b) || pins.indexOf(a) - pins.indexOf(b))[0] ?? null;
 		const d = entry ? dOf(p, entry) : 1e9;
 		visit(p, entry, null, placed.get(p.id)?.row ?? (d < 1e9 ? Math.max(0, d - 1) : 0));
 	}
@@ -684,7 +719,7 @@ function layoutOnce(c: DiagramCircuit, opts: LayoutOptions, gap: number): Drawin
 					byPoint.get(k)!.add(w.node);
 				}
 			}
-		for (const s of byPoint.values()) if (s.size > 1) crossings += s.size - 1;
+		for (const s of byPoint.values()) if (s.size > 1) crossings++;
 	}
 
 	// --- Labels that come after routing: wire colours / ids, test point flags.
