@@ -111,6 +111,20 @@ export function toFault(f: Fault | string): Fault {
 export function applyFault(c: Circuit, fault: Fault | string): Circuit {
 	const f = toFault(fault);
 	const text = describeFault(f);
+	let byFault = faultCache.get(c);
+	if (!byFault) faultCache.set(c, (byFault = new Map()));
+	const hit = byFault.get(text);
+	if (hit) return hit;
+	const out = buildFaulted(c, f, text);
+	if (byFault.size > 1024) byFault.clear();
+	byFault.set(text, out);
+	return out;
+}
+
+/** Faulted circuits by circuit and fault text; circuits are never changed, so a repeat returns the same object. */
+const faultCache = new WeakMap<Circuit, Map<string, Circuit>>();
+
+function buildFaulted(c: Circuit, f: Fault, text: string): Circuit {
 	if (c.fault) throw new FaultError(text, `circuit already has fault ${c.fault}; faults apply one at a time`);
 	const nodeNames = c.nodeNames.slice();
 	let elements: NetElement[] = c.elements.map((e) => ({ ...e }));

@@ -1,5 +1,7 @@
 /**
- * Dense LU factorisation with partial pivoting, in place on a row-major Float64Array.
+ * LU factorisation with partial pivoting, in place on a row-major Float64Array. It tracks each
+ * row's nonzero span (first to last column), so the sparse, nearly banded matrices of wiring
+ * networks cost far less than a dense elimination; the arithmetic is that of ordinary LU.
  */
 import { PIVOT_REL_TOL } from './tables';
 
@@ -13,68 +15,108 @@ export class SingularMatrixError extends Error {
 	}
 }
 
+/** Row spans of a factorisation: L of row i lies in columns first[i]..i-1, U in i..last[i]. */
+export type Spans = { first: Int32Array; last: Int32Array };
+
+/** Allocates spans for matrices up to n×n. */
+export function makeSpans(n: number): Spans {
+	return { first: new Int32Array(n), last: new Int32Array(n) };
+}
+
 /**
- * Factors the n×n matrix `a` (row-major, first n*n entries used) into L·U in place, row swaps in
- * `perm` (perm[i] = original row now at i). A pivot whose magnitude is below `PIVOT_REL_TOL` times
- * the largest magnitude in the matrix is treated as zero.
+ * Factors the n×n matrix `a` (row-major, first n*n entries used) into L·U in place with partial
+ * pivoting (perm[i] = original row now at i). A pivot whose magnitude is at most `PIVOT_REL_TOL`
+ * times the largest magnitude in the matrix counts as zero. With `known`, `spans` already hold each
+ * row's first and last nonzero column (as the matrix was built); otherwise they are found by a scan.
  * @throws SingularMatrixError when a column has no usable pivot.
  */
-export function luFactor(a: Float64Array, n: number, perm: Int32Array): void {
+export function luFactor(a: Float64Array, n: number, perm: Int32Array, spans: Spans = makeSpans(n), known = false): void {
+	const { first, last } = spans;
 	let scale = 0;
-	for (let i = 0; i < n * n; i++) {
-		const v = Math.abs(a[i]);
-		if (v > scale) scale = v;
+	for (let i = 0; i < n; i++) {
+		const r = i * n;
+		if (!known) {
+			let f = n;
+			let l = -1;
+			for (let j = 0; j < n; j++)
+				if (a[r + j] !== 0) {
+					if (f === n) f = j;
+					l = j;
+				}
+			first[i] = f;
+			last[i] = l;
+		}
+		for (let j = first[i], e = last[i]; j <= e; j++) {
+			const v = a[r + j];
+			const m = v < 0 ? -v : v;
+			if (m > scale) scale = m;
+		}
+		perm[i] = i;
 	}
 	const tol = scale * PIVOT_REL_TOL;
-	for (let i = 0; i < n; i++) perm[i] = i;
 	for (let k = 0; k < n; k++) {
-		let p = k;
-		let best = Math.abs(a[k * n + k]);
-		for (let i = k + 1; i < n; i++) {
-			const v = Math.abs(a[i * n + k]);
-			if (v > best) {
-				best = v;
+		let p = -1;
+		let best = tol;
+		for (let i = k; i < n; i++) {
+			if (first[i] > k) continue;
+			const v = a[i * n + k];
+			const m = v < 0 ? -v : v;
+			if (m > best) {
+				best = m;
 				p = i;
 			}
 		}
-		if (!(best > tol)) throw new SingularMatrixError(k);
+		if (p < 0) throw new SingularMatrixError(k);
 		if (p !== k) {
 			const rk = k * n;
 			const rp = p * n;
-			for (let j = 0; j < n; j++) {
+			const lo = Math.min(first[k], first[p]);
+			const hi = Math.max(last[k], last[p]);
+			for (let j = lo; j <= hi; j++) {
 				const t = a[rk + j];
 				a[rk + j] = a[rp + j];
 				a[rp + j] = t;
 			}
-			const t = perm[k];
+			let t = perm[k];
 			perm[k] = perm[p];
 			perm[p] = t;
+			t = first[k];
+			first[k] = first[p];
+			first[p] = t;
+			t = last[k];
+			last[k] = last[p];
+			last[p] = t;
 		}
 		const rk = k * n;
 		const piv = a[rk + k];
+		const lk = last[k];
 		for (let i = k + 1; i < n; i++) {
+			if (first[i] > k) continue;
 			const ri = i * n;
 			const m = a[ri + k];
 			if (m === 0) continue;
 			const f = m / piv;
 			a[ri + k] = f;
-			for (let j = k + 1; j < n; j++) a[ri + j] -= f * a[rk + j];
+			for (let j = k + 1; j <= lk; j++) a[ri + j] -= f * a[rk + j];
+			if (lk > last[i]) last[i] = lk;
 		}
 	}
 }
 
-/** Solves L·U·x = P·b for a matrix factored by `luFactor`; writes x into `x` (may not alias `b`). */
-export function luSolve(a: Float64Array, n: number, perm: Int32Array, b: Float64Array, x: Float64Array): void {
+/** Solves L·U·x = P·b for a matrix factored by `luFactor` with the same spans; writes x (may not alias b). */
+export function luSolve(a: Float64Array, n: number, perm: Int32Array, b: Float64Array, x: Float64Array, spans?: Spans): void {
 	for (let i = 0; i < n; i++) {
 		let s = b[perm[i]];
 		const ri = i * n;
-		for (let j = 0; j < i; j++) s -= a[ri + j] * x[j];
+		const f = spans ? spans.first[i] : 0;
+		for (let j = f; j < i; j++) s -= a[ri + j] * x[j];
 		x[i] = s;
 	}
 	for (let i = n - 1; i >= 0; i--) {
 		let s = x[i];
 		const ri = i * n;
-		for (let j = i + 1; j < n; j++) s -= a[ri + j] * x[j];
+		const l = spans ? spans.last[i] : n - 1;
+		for (let j = i + 1; j <= l; j++) s -= a[ri + j] * x[j];
 		x[i] = s / a[ri + i];
 	}
 }

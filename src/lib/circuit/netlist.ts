@@ -60,6 +60,18 @@ export type Net = {
 	sources: Int32Array;
 	lampEl: number;
 	lampOhms: number;
+	/** Nodes in elimination order: farthest from GND and B+ first (reverse breadth-first), which keeps LU fill-in small on tree-like wiring. */
+	order: Int32Array;
+	/** Node index of each labelled point, in file order. */
+	pointNode: Int32Array;
+	/** Element indices of each part, in file order. */
+	partEls: number[][];
+	/** Fuse slot, diode slot and relay index of each element (-1 where none). */
+	fuseSlot: Int32Array;
+	diodeSlot: Int32Array;
+	relayOfEl: Int32Array;
+	/** Relay index of each part (-1 for non-relays). */
+	relayOfPart: Int32Array;
 };
 
 /** Resolves a lamp option to [node index, other end node index]. @throws SolveOptionError. */
@@ -80,6 +92,21 @@ function lampEnds(c: Circuit, lamp: string): [number, number] {
  * @throws SolveOptionError for an unknown state or lamp point.
  */
 export function compileNet(c: Circuit, state: string | null | undefined, lamp: string | null | undefined): Net {
+	let byKey = netCache.get(c);
+	if (!byKey) netCache.set(c, (byKey = new Map()));
+	const key = `${state ?? ''}\u0000${lamp ?? ''}`;
+	const hit = byKey.get(key);
+	if (hit) return hit;
+	const net = buildNet(c, state, lamp);
+	if (byKey.size > 64) byKey.clear();
+	byKey.set(key, net);
+	return net;
+}
+
+/** Compiled networks by circuit, then by state and lamp. A Net is never changed after it is built. */
+const netCache = new WeakMap<Circuit, Map<string, Net>>();
+
+function buildNet(c: Circuit, state: string | null | undefined, lamp: string | null | undefined): Net {
 	const st = state == null ? null : c.states.find((s) => s.name === state);
 	if (st === undefined)
 		throw new SolveOptionError('state', `unknown state "${state}"; this circuit's states are ${c.states.map((s) => s.name).join(', ') || 'none'}`);
@@ -217,7 +244,28 @@ export function compileNet(c: Circuit, state: string | null | undefined, lamp: s
 		const p = c.parts[els[ei].part];
 		fuseRating[k] = FUSE_TYPES.has(p.type) ? p.rating! : Infinity;
 	});
+	const order = eliminationOrder(nNodes, ea, eb);
+	const pointNode = Int32Array.from(c.points.map((p) => c.nodeNames.indexOf(p.node)));
+	const partEls: number[][] = c.parts.map(() => []);
+	for (let i = 0; i < ne; i++) if (els[i].part >= 0) partEls[els[i].part].push(i);
+	const fuseSlot = new Int32Array(ne).fill(-1);
+	fuses.forEach((e, k) => (fuseSlot[e] = k));
+	const diodeSlot = new Int32Array(ne).fill(-1);
+	diodes.forEach((e, k) => (diodeSlot[e] = k));
+	const relayOfEl = new Int32Array(ne).fill(-1);
+	const relayOfPart = new Int32Array(c.parts.length).fill(-1);
+	for (let r = 0; r < nr; r++) {
+		relayOfPart[relayPart[r]] = r;
+		for (const e of [relayNo[r], relayNc[r], relayCoil[r]]) if (e >= 0) relayOfEl[e] = r;
+	}
 	return {
+		order,
+		pointNode,
+		partEls,
+		fuseSlot,
+		diodeSlot,
+		relayOfEl,
+		relayOfPart,
 		circuit: c,
 		state: st ? st.name : null,
 		emf,
@@ -249,4 +297,38 @@ export function compileNet(c: Circuit, state: string | null | undefined, lamp: s
 		lampEl,
 		lampOhms
 	};
+}
+
+/** Reverse breadth-first order from B+ and GND over every element; nodes not reached come first. */
+function eliminationOrder(nNodes: number, ea: Int32Array, eb: Int32Array): Int32Array {
+	const deg = new Int32Array(nNodes + 1);
+	for (let i = 0; i < ea.length; i++) {
+		deg[ea[i] + 1]++;
+		deg[eb[i] + 1]++;
+	}
+	for (let i = 0; i < nNodes; i++) deg[i + 1] += deg[i];
+	const adj = new Int32Array(deg[nNodes]);
+	const fill = deg.slice(0, nNodes);
+	for (let i = 0; i < ea.length; i++) {
+		adj[fill[ea[i]]++] = eb[i];
+		adj[fill[eb[i]]++] = ea[i];
+	}
+	const seen = new Uint8Array(nNodes);
+	const bfs: number[] = [1, 0];
+	seen[0] = seen[1] = 1;
+	for (let h = 0; h < bfs.length; h++) {
+		const u = bfs[h];
+		for (let k = deg[u]; k < deg[u + 1]; k++) {
+			const v = adj[k];
+			if (!seen[v]) {
+				seen[v] = 1;
+				bfs.push(v);
+			}
+		}
+	}
+	const out = new Int32Array(nNodes);
+	let q = 0;
+	for (let i = 0; i < nNodes; i++) if (!seen[i]) out[q++] = i;
+	for (let h = bfs.length - 1; h >= 0; h--) out[q++] = bfs[h];
+	return out;
 }

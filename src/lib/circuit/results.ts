@@ -22,13 +22,7 @@ import { findRoot, unite } from './union-find';
 
 /** Relay index of every element (-1 for non-relay elements). */
 export function relayOfElements(net: Net): Int32Array {
-	const out = new Int32Array(net.els.length).fill(-1);
-	for (let r = 0; r < net.relayPart.length; r++) {
-		if (net.relayNo[r] >= 0) out[net.relayNo[r]] = r;
-		if (net.relayNc[r] >= 0) out[net.relayNc[r]] = r;
-		if (net.relayCoil[r] >= 0) out[net.relayCoil[r]] = r;
-	}
-	return out;
+	return net.relayOfEl;
 }
 
 /** True when element i is a 0 Ω element in place. */
@@ -42,15 +36,11 @@ function isIdealOn(net: Net, cfg: Config, i: number, rel: Int32Array): boolean {
 
 /** Fuse slot of every element (-1 for non-fuses). */
 function fuseSlots(net: Net): Int32Array {
-	const out = new Int32Array(net.els.length).fill(-1);
-	net.fuses.forEach((e, k) => (out[e] = k));
-	return out;
+	return net.fuseSlot;
 }
 
 function diodeSlots(net: Net): Int32Array {
-	const out = new Int32Array(net.els.length).fill(-1);
-	net.diodes.forEach((e, k) => (out[e] = k));
-	return out;
+	return net.diodeSlot;
 }
 
 /** True when element i conducts as a non-ideal element (resistance, intact fuse, conducting diode). */
@@ -63,10 +53,11 @@ function resistiveOn(net: Net, cfg: Config, i: number, fs: Int32Array, ds: Int32
 }
 
 /**
- * Currents in A of every element from its a node to its b node: resistive elements by Ohm's law,
- * sources delivering from − to + (positive while delivering), ideal elements by KCL within their
- * merged node with the minimum-norm split (unit-weight Laplacian). Also returns the meter currents
- * by merged node root (from the root node to GND).
+ * Currents in A of every element from its a node to its b node: resistive elements by Ohm's law;
+ * 0 Ω elements and sources (battery, supply parts) by Kirchhoff's current law over the graph they
+ * form, with the equal minimum-norm split where they close a loop (a unit-weight Laplacian solve;
+ * a tree is solved exactly by peeling leaves). A source's current is reported from its − node to
+ * its + node (positive while delivering). Also returns each merged node's meter current by root node.
  */
 export function elementCurrents(s: Settled): { amps: Float64Array; meter: Float64Array } {
 	const { net, cfg, work: w } = s;
@@ -77,8 +68,8 @@ export function elementCurrents(s: Settled): { amps: Float64Array; meter: Float6
 	const rel = relayOfElements(net);
 	const fs = fuseSlots(net);
 	const ds = diodeSlots(net);
+	const graphEl: number[] = [];
 	for (let i = 0; i < ne; i++) {
-		const c = net.code[i];
 		const a = net.ea[i];
 		const b = net.eb[i];
 		if (resistiveOn(net, cfg, i, fs, ds)) {
@@ -86,51 +77,81 @@ export function elementCurrents(s: Settled): { amps: Float64Array; meter: Float6
 			amps[i] = I;
 			inflow[b] += I;
 			inflow[a] -= I;
-		} else if (c === Code.Source) {
-			const I = -w.srcI[i];
-			amps[i] = I;
-			inflow[a] += I;
-			inflow[b] -= I;
-		}
+		} else if ((net.code[i] === Code.Source && w.srcOn[i]) || isIdealOn(net, cfg, i, rel)) graphEl.push(i);
 	}
 	const meter = new Float64Array(nn);
-	const seen = new Uint8Array(nn);
 	for (let i = 0; i < nn; i++) {
 		if (!net.metered[i] || w.gOf[i] === -2) continue;
 		const r = w.root[i];
-		if (w.gOf[r] < 0 || seen[r]) continue;
-		seen[r] = 1;
+		if (r !== i || r === w.root[1]) continue;
 		const I = w.V[i] / METER_OHMS;
 		meter[r] = I;
 		inflow[r] -= I;
 		inflow[1] += I;
 	}
-	// ideal elements: per merged node, solve the unit Laplacian L·phi = inflow
-	const members = new Map<number, number[]>();
-	const edges = new Map<number, number[]>();
-	for (let i = 0; i < ne; i++) {
-		if (!isIdealOn(net, cfg, i, rel)) continue;
-		const r = w.root[net.ea[i]];
-		let list = edges.get(r);
-		if (!list) edges.set(r, (list = []));
-		list.push(i);
+	if (graphEl.length === 0) return { amps, meter };
+	// components of the graph of 0 Ω elements and sources
+	const p = new Int32Array(nn);
+	for (let i = 0; i < nn; i++) p[i] = i;
+	for (const e of graphEl) unite(p, net.ea[e], net.eb[e]);
+	const deg = new Int32Array(nn);
+	for (const e of graphEl) {
+		deg[net.ea[e]]++;
+		deg[net.eb[e]]++;
 	}
-	if (edges.size === 0) return { amps, meter };
+	const compEdges = new Map<number, number[]>();
+	for (const e of graphEl) {
+		const r = findRoot(p, net.ea[e]);
+		let l = compEdges.get(r);
+		if (!l) compEdges.set(r, (l = []));
+		l.push(e);
+	}
+	const compNodes = new Map<number, number[]>();
 	for (let i = 0; i < nn; i++) {
-		const r = w.root[i];
-		if (!edges.has(r)) continue;
-		let m = members.get(r);
-		if (!m) members.set(r, (m = []));
-		m.push(i);
+		if (deg[i] === 0) continue;
+		const r = findRoot(p, i);
+		let l = compNodes.get(r);
+		if (!l) compNodes.set(r, (l = []));
+		l.push(i);
 	}
-	for (const [r, es] of edges) {
-		const mem = members.get(r)!;
+	const flow = (e: number, I: number) => {
+		// I flows from ea to eb through the element; a source reports − to +
+		amps[e] = net.code[e] === Code.Source ? -I : I;
+	};
+	for (const [r, es] of compEdges) {
+		const mem = compNodes.get(r)!;
+		if (es.length === mem.length - 1) {
+			// a tree: peel leaves
+			const adj = new Map<number, number[]>();
+			for (const v of mem) adj.set(v, []);
+			for (const e of es) {
+				adj.get(net.ea[e])!.push(e);
+				adj.get(net.eb[e])!.push(e);
+			}
+			const done = new Uint8Array(ne);
+			const stack = mem.filter((v) => deg[v] === 1);
+			while (stack.length) {
+				const v = stack.pop()!;
+				if (deg[v] !== 1) continue;
+				let e = -1;
+				for (const x of adj.get(v)!) if (!done[x]) e = x;
+				if (e < 0) continue;
+				done[e] = 1;
+				const u = net.ea[e] === v ? net.eb[e] : net.ea[e];
+				flow(e, net.ea[e] === v ? inflow[v] : -inflow[v]);
+				inflow[u] += inflow[v];
+				inflow[v] = 0;
+				deg[v]--;
+				deg[u]--;
+				if (deg[u] === 1) stack.push(u);
+			}
+			continue;
+		}
 		const m = mem.length;
 		const local = new Map(mem.map((v, k) => [v, k]));
 		const k = m - 1;
-		if (k === 0) continue;
 		const L = new Float64Array(k * k);
-		const rhs = new Float64Array(k);
+		const rhsv = new Float64Array(k);
 		for (const e of es) {
 			const a = local.get(net.ea[e])!;
 			const b = local.get(net.eb[e])!;
@@ -142,13 +163,12 @@ export function elementCurrents(s: Settled): { amps: Float64Array; meter: Float6
 				L[b * k + a] -= 1;
 			}
 		}
-		for (let q = 0; q < k; q++) rhs[q] = inflow[mem[q]];
+		for (let q = 0; q < k; q++) rhsv[q] = inflow[mem[q]];
 		const perm = new Int32Array(k);
 		const phi = new Float64Array(m);
 		luFactor(L, k, perm);
-		luSolve(L, k, perm, rhs, phi);
-		phi[k] = 0;
-		for (const e of es) amps[e] = phi[local.get(net.ea[e])!] - phi[local.get(net.eb[e])!];
+		luSolve(L, k, perm, rhsv, phi);
+		for (const e of es) flow(e, phi[local.get(net.ea[e])!] - phi[local.get(net.eb[e])!]);
 	}
 	return { amps, meter };
 }
@@ -165,7 +185,7 @@ export function reachableNodes(s: Settled): Uint8Array {
 		if (resistiveOn(net, cfg, i, fs, ds)) {
 			unite(p, net.ea[i], net.eb[i]);
 			if (net.code[i] === Code.Diode) unite(p, net.ea[i], net.emid[i]);
-		} else if (net.code[i] === Code.Source) seeds.push(net.ea[i], net.eb[i]);
+		} else if (net.code[i] === Code.Source && w.gOf[net.ea[i]] !== -2) seeds.push(net.ea[i], net.eb[i]);
 	}
 	const live = new Uint8Array(nn);
 	for (const sd of seeds) live[findRoot(p, sd)] = 1;
@@ -199,15 +219,15 @@ export function buildResult(s: Settled, fault: string | null, needAmps: boolean)
 	for (let i = 0; i < c.fileNodeCount; i++) nodes[c.nodeNames[i]] = roundVolts(w.V[i]);
 	const reach = reachableNodes(s);
 	const points: Record<string, { volts: number; reads: Reads }> = {};
-	for (const pt of c.points) {
-		const i = c.nodeNames.indexOf(pt.node);
+	for (let q = 0; q < c.points.length; q++) {
+		const pt = c.points[q];
+		const i = net.pointNode[q];
 		points[pt.label] = { volts: roundVolts(w.V[i]), reads: readingClass(w.V[i], net.emf, !!reach[i]) };
 	}
 	const cur = needAmps ? elementCurrents(s).amps : null;
 	const fs = fuseSlots(net);
 	const ds = diodeSlots(net);
-	const byPart: number[][] = c.parts.map(() => []);
-	for (let i = 0; i < net.els.length; i++) if (net.els[i].part >= 0) byPart[net.els[i].part].push(i);
+	const byPart = net.partEls;
 	const ampsOf = (i: number): number => {
 		if (cur) return Math.abs(cur[i]);
 		return resistiveOn(net, cfg, i, fs, ds) ? Math.abs(elementAmps(net, w, i)) : 0;
@@ -223,7 +243,7 @@ export function buildResult(s: Settled, fault: string | null, needAmps: boolean)
 			status = open ? (p.type === 'breaker' ? 'tripped' : 'blown') : 'ok';
 			amps = open ? 0 : ampsOf(e!);
 		} else if (p.type === 'relay') {
-			const r = net.relayPart.indexOf(pi);
+			const r = net.relayOfPart[pi];
 			const st = cfg.relay[r];
 			status = st === 2 ? 'chattering' : st === 1 ? 'energized' : 'released';
 			const coil = net.relayCoil[r];
@@ -250,7 +270,7 @@ export function buildResult(s: Settled, fault: string | null, needAmps: boolean)
 			amps = on ? ampsOf(e) : 0;
 		} else if (p.type === 'supply') {
 			const e = els[0];
-			amps = e !== undefined ? Math.abs(w.srcI[e]) : 0;
+			amps = e !== undefined && cur ? Math.abs(cur[e]) : 0;
 		} else if (p.type === 'resistor') {
 			amps = els[0] !== undefined ? ampsOf(els[0]) : 0;
 		} else if (p.type === 'connector' || p.type === 'ground') {
@@ -291,7 +311,7 @@ export function elementList(s: Settled): ElementCurrent[] {
 		else if (c === Code.Source) out.push({ id: e.id, from: names[e.b], to: names[e.a], amps: amps[i], ohms: null, kind: 'source' });
 	}
 	for (let r = 0; r < net.nNodes; r++)
-		if (w.root[r] === r && net.metered[r] && w.gOf[r] >= 0)
+		if (w.root[r] === r && net.metered[r] && w.gOf[r] !== -2 && r !== w.root[1])
 			out.push({ id: `meter:${names[r]}`, from: names[r], to: 'GND', amps: meter[r], ohms: METER_OHMS, kind: 'meter' });
 	return out;
 }
@@ -314,8 +334,12 @@ export function linearNetwork(s: Settled): LinearNetwork {
 	const nodeSet: string[] = [];
 	const nodeOf: Record<string, string> = {};
 	const voltages: Record<string, number> = {};
+	const midOn = new Uint8Array(net.nNodes);
+	net.diodes.forEach((e, k) => {
+		if (cfg.diodeOn[k]) midOn[net.emid[e]] = 1;
+	});
 	for (let i = 0; i < net.nNodes; i++) {
-		if (w.gOf[i] === -2) continue;
+		if (w.gOf[i] === -2 && !midOn[i]) continue;
 		const nm = nameOf(i);
 		nodeOf[names[i]] = nm;
 		if (!(nm in voltages)) {
@@ -332,12 +356,12 @@ export function linearNetwork(s: Settled): LinearNetwork {
 			const a = nameOf(e.a);
 			if (a !== b) resistors.push({ id: e.id, a, b, ohms: 1 / net.g[i] });
 			if (net.code[i] === Code.Diode) vsources.push({ id: `${e.id}#drop`, plus: nameOf(e.mid!), minus: nameOf(e.b), volts: net.ev[i] });
-		} else if (net.code[i] === Code.Source && w.row[i] >= 0)
+		} else if (net.code[i] === Code.Source && w.srcOn[i])
 			vsources.push({ id: e.id, plus: nameOf(e.a), minus: nameOf(e.b), volts: net.ev[i] });
 	}
 	const metered = new Set<string>();
 	for (let i = 0; i < net.nNodes; i++) {
-		if (!net.metered[i] || w.gOf[i] === -2 || w.gOf[w.root[i]] < 0) continue;
+		if (!net.metered[i] || w.gOf[i] === -2 || w.root[i] === w.root[1]) continue;
 		const nm = nameOf(i);
 		if (metered.has(nm)) continue;
 		metered.add(nm);
@@ -364,7 +388,7 @@ export function deadShortElements(s: Settled): string[] {
 		if (isIdealOn(net, cfg, i, rel)) {
 			adj[a].push({ to: b, el: i, cost: 1 });
 			adj[b].push({ to: a, el: i, cost: 1 });
-		} else if (net.code[i] === Code.Source && w.row[i] >= 0) {
+		} else if (net.code[i] === Code.Source && w.srcOn[i]) {
 			adj[a].push({ to: b, el: -1, cost: 0 });
 			adj[b].push({ to: a, el: -1, cost: 0 });
 		}
