@@ -72,7 +72,10 @@ export function elementCurrents(s: Settled): { amps: Float64Array; meter: Float6
 	for (let i = 0; i < ne; i++) {
 		const a = net.ea[i];
 		const b = net.eb[i];
-		if (resistiveOn(net, cfg, i, fs, ds)) {
+		// the battery's own resistance is in series with its EMF: its current follows from KCL like the
+		// source's, which keeps 1/ohms times the rounding of the B+ volts out of the reported currents
+		if (net.els[i].kind === 'source' && net.code[i] === Code.Resistor) graphEl.push(i);
+		else if (resistiveOn(net, cfg, i, fs, ds)) {
 			const I = elementAmps(net, w, i);
 			amps[i] = I;
 			inflow[b] += I;
@@ -89,69 +92,71 @@ export function elementCurrents(s: Settled): { amps: Float64Array; meter: Float6
 		inflow[r] -= I;
 		inflow[1] += I;
 	}
-	if (graphEl.length === 0) return { amps, meter };
-	// components of the graph of 0 Ω elements and sources
+	const ng = graphEl.length;
+	if (ng === 0) return { amps, meter };
+	// peel leaves of the graph of 0 Ω elements and sources: a tree's currents follow from KCL alone
+	const deg = new Int32Array(nn + 1);
+	for (let q = 0; q < ng; q++) {
+		deg[net.ea[graphEl[q]] + 1]++;
+		deg[net.eb[graphEl[q]] + 1]++;
+	}
+	const start = new Int32Array(nn + 1);
+	for (let i = 0; i < nn; i++) start[i + 1] = start[i] + deg[i + 1];
+	const inc = new Int32Array(start[nn]);
+	const fill = start.slice(0, nn);
+	for (let q = 0; q < ng; q++) {
+		inc[fill[net.ea[graphEl[q]]]++] = q;
+		inc[fill[net.eb[graphEl[q]]]++] = q;
+	}
+	const left = new Int32Array(nn);
+	for (let i = 0; i < nn; i++) left[i] = start[i + 1] - start[i];
+	const done = new Uint8Array(ng);
+	const stack: number[] = [];
+	for (let i = 0; i < nn; i++) if (left[i] === 1) stack.push(i);
+	let remaining = ng;
+	while (stack.length) {
+		const v = stack.pop()!;
+		if (left[v] !== 1) continue;
+		let q = -1;
+		for (let k = start[v]; k < start[v + 1]; k++) if (!done[inc[k]]) q = inc[k];
+		const e = graphEl[q];
+		done[q] = 1;
+		remaining--;
+		const toB = net.ea[e] === v;
+		const u = toB ? net.eb[e] : net.ea[e];
+		const I = toB ? inflow[v] : -inflow[v];
+		amps[e] = net.code[e] === Code.Source ? -I : I;
+		inflow[u] += inflow[v];
+		inflow[v] = 0;
+		left[v]--;
+		left[u]--;
+		if (left[u] === 1) stack.push(u);
+	}
+	if (remaining === 0) return { amps, meter };
+	// loops of 0 Ω elements: the minimum-norm split, a unit-weight Laplacian over each loop's nodes
 	const p = new Int32Array(nn);
 	for (let i = 0; i < nn; i++) p[i] = i;
-	for (const e of graphEl) unite(p, net.ea[e], net.eb[e]);
-	const deg = new Int32Array(nn);
-	for (const e of graphEl) {
-		deg[net.ea[e]]++;
-		deg[net.eb[e]]++;
-	}
-	const compEdges = new Map<number, number[]>();
-	for (const e of graphEl) {
-		const r = findRoot(p, net.ea[e]);
-		let l = compEdges.get(r);
-		if (!l) compEdges.set(r, (l = []));
-		l.push(e);
-	}
-	const compNodes = new Map<number, number[]>();
+	const coreEdges: number[] = [];
+	for (let q = 0; q < ng; q++)
+		if (!done[q]) {
+			coreEdges.push(graphEl[q]);
+			unite(p, net.ea[graphEl[q]], net.eb[graphEl[q]]);
+		}
+	const comps = new Map<number, number[]>();
 	for (let i = 0; i < nn; i++) {
-		if (deg[i] === 0) continue;
+		if (left[i] === 0) continue;
 		const r = findRoot(p, i);
-		let l = compNodes.get(r);
-		if (!l) compNodes.set(r, (l = []));
+		let l = comps.get(r);
+		if (!l) comps.set(r, (l = []));
 		l.push(i);
 	}
-	const flow = (e: number, I: number) => {
-		// I flows from ea to eb through the element; a source reports − to +
-		amps[e] = net.code[e] === Code.Source ? -I : I;
-	};
-	for (const [r, es] of compEdges) {
-		const mem = compNodes.get(r)!;
-		if (es.length === mem.length - 1) {
-			// a tree: peel leaves
-			const adj = new Map<number, number[]>();
-			for (const v of mem) adj.set(v, []);
-			for (const e of es) {
-				adj.get(net.ea[e])!.push(e);
-				adj.get(net.eb[e])!.push(e);
-			}
-			const done = new Uint8Array(ne);
-			const stack = mem.filter((v) => deg[v] === 1);
-			while (stack.length) {
-				const v = stack.pop()!;
-				if (deg[v] !== 1) continue;
-				let e = -1;
-				for (const x of adj.get(v)!) if (!done[x]) e = x;
-				if (e < 0) continue;
-				done[e] = 1;
-				const u = net.ea[e] === v ? net.eb[e] : net.ea[e];
-				flow(e, net.ea[e] === v ? inflow[v] : -inflow[v]);
-				inflow[u] += inflow[v];
-				inflow[v] = 0;
-				deg[v]--;
-				deg[u]--;
-				if (deg[u] === 1) stack.push(u);
-			}
-			continue;
-		}
+	for (const [r, mem] of comps) {
 		const m = mem.length;
 		const local = new Map(mem.map((v, k) => [v, k]));
 		const k = m - 1;
 		const L = new Float64Array(k * k);
 		const rhsv = new Float64Array(k);
+		const es = coreEdges.filter((e) => findRoot(p, net.ea[e]) === r);
 		for (const e of es) {
 			const a = local.get(net.ea[e])!;
 			const b = local.get(net.eb[e])!;
@@ -166,9 +171,14 @@ export function elementCurrents(s: Settled): { amps: Float64Array; meter: Float6
 		for (let q = 0; q < k; q++) rhsv[q] = inflow[mem[q]];
 		const perm = new Int32Array(k);
 		const phi = new Float64Array(m);
-		luFactor(L, k, perm);
-		luSolve(L, k, perm, rhsv, phi);
-		for (const e of es) flow(e, phi[local.get(net.ea[e])!] - phi[local.get(net.eb[e])!]);
+		if (k > 0) {
+			luFactor(L, k, perm);
+			luSolve(L, k, perm, rhsv, phi);
+		}
+		for (const e of es) {
+			const I = phi[local.get(net.ea[e])!] - phi[local.get(net.eb[e])!];
+			amps[e] = net.code[e] === Code.Source ? -I : I;
+		}
 	}
 	return { amps, meter };
 }
@@ -303,9 +313,7 @@ export function elementList(s: Settled): ElementCurrent[] {
 		if (isIdealOn(net, cfg, i, rel)) out.push({ id: e.id, from: names[e.a], to: names[e.b], amps: amps[i], ohms: null, kind });
 		else if (c === Code.Diode) {
 			if (!cfg.diodeOn[ds[i]]) continue;
-			const mid = names[e.mid!];
-			out.push({ id: e.id, from: names[e.a], to: mid, amps: amps[i], ohms: e.ohms, kind });
-			out.push({ id: `${e.id}#drop`, from: names[e.b], to: mid, amps: -amps[i], ohms: null, kind: 'source' });
+			out.push({ id: e.id, from: names[e.a], to: names[e.b], amps: amps[i], ohms: e.ohms, kind });
 		} else if (resistiveOn(net, cfg, i, fs, ds))
 			out.push({ id: e.id, from: names[e.a], to: names[e.b], amps: amps[i], ohms: 1 / net.g[i], kind });
 		else if (c === Code.Source) out.push({ id: e.id, from: names[e.b], to: names[e.a], amps: amps[i], ohms: null, kind: 'source' });

@@ -68,7 +68,8 @@ export type LinearNetwork = {
 /**
  * One conducting element of a settled solve. `amps` is unrounded, positive when current flows from
  * `from` to `to` (original node names; internal nodes such as `W3#mid` allowed). For a source, `from`
- * is its − node and `to` its + node, so a source delivering power has positive amps.
+ * is its − node and `to` its + node, so a source delivering power has positive amps. A conducting
+ * diode is one element from its a to its k pin with `ohms` its on-resistance: amps = (Va − Vk − drop) / ohms.
  */
 export type ElementCurrent = {
 	id: string;
