@@ -3,6 +3,7 @@
 // then exercises every entry over HTTP for an anonymous visitor and for each role.
 // Adding a route? Add its entries here (see DEVELOPERS.md, "Adding a route").
 import type { Role } from '../src/lib/server/auth/roles';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../src/lib/server/seed/demo';
 
 export type Visitor = 'anonymous' | Role;
 
@@ -30,15 +31,6 @@ export type MatrixEntry =
 	  }
 	| { kind: 'endpoint'; route: string; method: string; path?: string; allow: Allowed; outcome?: Outcome };
 
-const DEMO_NAMES: Record<Role, string> = {
-	learner: 'Tobin Vasquez-Harlow',
-	instructor: 'Marguerite Okonjo',
-	author: 'Dev Ashworth',
-	reviewer: 'Linnea Farrowby',
-	school_admin: 'Casimir Delacourt',
-	site_admin: 'Noor Halvorsen'
-};
-
 export const MATRIX: MatrixEntry[] = [
 	{ kind: 'page', route: '/', allow: 'anyone' },
 	{ kind: 'page', route: '/signin', allow: 'anyone' },
@@ -47,7 +39,7 @@ export const MATRIX: MatrixEntry[] = [
 		route: '/signin',
 		action: 'default',
 		allow: 'anyone',
-		form: () => ({ email: 'reviewer@harrowcreek.example', password: 'splice-demo-2026', next: '/home' }),
+		form: () => ({ email: 'reviewer@harrowcreek.example', password: DEMO_PASSWORD, next: '/home' }),
 		outcome: { redirect: '/home' }
 	},
 	{ kind: 'page', route: '/signup', allow: 'anyone' },
@@ -82,7 +74,7 @@ export const MATRIX: MatrixEntry[] = [
 		action: 'default',
 		allow: 'signed-in',
 		form: ({ visitor }) => ({
-			name: visitor === 'anonymous' ? 'Nobody' : DEMO_NAMES[visitor],
+			name: DEMO_ACCOUNTS.find((a) => a.role === visitor)?.name ?? 'Nobody',
 			timeZone: 'America/Chicago'
 		}),
 		outcome: { redirect: '/profile' }

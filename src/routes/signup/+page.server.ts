@@ -2,7 +2,7 @@ import { redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { signupSchema } from './schema';
 import { invalid, parseForm } from '$lib/server/forms';
-import { passwordProblem, PASSWORD_RULE } from '$lib/server/auth/password';
+import { PASSWORD_RULE } from '$lib/server/auth/password';
 import { createSession, setSessionCookie } from '$lib/server/auth/session';
 import { createAccount, EmailTakenError } from '$lib/server/users/accounts';
 
@@ -16,8 +16,6 @@ export const actions: Actions = {
 			return invalid(form, parsed.errors, 'Your account was not created yet. Please fix the fields marked below.');
 		}
 		const { name, email, password, timeZone } = parsed.data;
-		const problem = passwordProblem(password, email);
-		if (problem) return invalid(form, { password: problem });
 
 		let account;
 		try {

@@ -4,7 +4,8 @@ import { closeDb, getDb } from '../db/client';
 import { session as sessionTable } from '../db/schema';
 import { uniqueEmail } from '../../../../tests/helpers/db';
 import { createAccount } from '../users/accounts';
-import { SESSION_DAYS, createSession, invalidateSession, validateSession } from './session';
+import type { Cookies } from '@sveltejs/kit';
+import { SESSION_COOKIE, SESSION_DAYS, createSession, invalidateSession, setSessionCookie, validateSession } from './session';
 
 afterAll(closeDb);
 afterEach(() => vi.useRealTimers());
@@ -56,5 +57,20 @@ describe('sessions (MariaDB, lucia)', () => {
 		const { session } = await newSession();
 		await invalidateSession(session.id);
 		expect((await validateSession(session.id)).user).toBeNull();
+	});
+
+	// OWASP Session Management Cheat Sheet, "Cookies": Secure, HttpOnly and SameSite on the session cookie.
+	it('writes the cookie httpOnly and SameSite=Lax for the whole site, Secure only over https', async () => {
+		const { session } = await newSession();
+		const calls: { name: string; value: string; options: Record<string, unknown> }[] = [];
+		const cookies = { set: (name: string, value: string, options: Record<string, unknown>) => calls.push({ name, value, options }) };
+		setSessionCookie({ cookies: cookies as unknown as Cookies, url: new URL('https://splicepoint.example/signin') }, session.id);
+		setSessionCookie({ cookies: cookies as unknown as Cookies, url: new URL('http://127.0.0.1:3000/signin') }, session.id);
+		expect(calls[0]).toMatchObject({
+			name: SESSION_COOKIE,
+			value: session.id,
+			options: { httpOnly: true, sameSite: 'lax', secure: true, path: '/', maxAge: SESSION_DAYS * 86_400 }
+		});
+		expect(calls[1]?.options.secure).toBe(false);
 	});
 });

@@ -1,10 +1,11 @@
 import { eq } from 'drizzle-orm';
 import { getDb } from '../db/client';
-import { school, user } from '../db/schema';
+import { user } from '../db/schema';
 import type { Role } from '../auth/roles';
 import { createAccount, findAccountByEmail } from '../users/accounts';
 import { grantRole } from '../users/roles';
 import { passwordProblem } from '../auth/password';
+import { ensureSchool } from '../schools/schools';
 
 // A fictional school and invented people, for trying the app; `npm start` prints these sign-ins.
 export const DEMO_SCHOOL = 'Harrow Creek Technical College';
@@ -19,14 +20,6 @@ export const DEMO_ACCOUNTS: { email: string; name: string; role: Role }[] = [
 	{ email: 'schooladmin@harrowcreek.example', name: 'Casimir Delacourt', role: 'school_admin' },
 	{ email: 'siteadmin@harrowcreek.example', name: 'Noor Halvorsen', role: 'site_admin' }
 ];
-
-async function ensureSchool(name: string): Promise<number> {
-	const db = getDb();
-	await db.insert(school).values({ name }).onDuplicateKeyUpdate({ set: { name } });
-	const [row] = await db.select({ id: school.id }).from(school).where(eq(school.name, name));
-	if (!row) throw new Error(`school "${name}" was not stored`);
-	return row.id;
-}
 
 /**
  * Upserts the demo school and one account per role, keyed by e-mail. Running it again adds nothing:
