@@ -434,6 +434,8 @@ function layoutOnce(c: DiagramCircuit, opts: LayoutOptions, gap: number): Drawin
 	const state = opts.state ?? null;
 	const settings = new Map(c.parts.map((p) => [p.id, settingOf(c, p, state)] as const));
 	const labels = new Map(c.parts.map((p) => [p.id, labelLines(p, settings.get(p.id) ?? null)] as const));
+	// Sized for the widest setting, so toggling a switch never moves the drawing.
+	const sizingLines = new Map(c.parts.map((p) => [p.id, p.type === 'switch' && !p.positions ? labelLines(p, 'closed') : labels.get(p.id)!] as const));
 	const labelSize = (lines: string[]) => ({
 		w: Math.ceil(Math.max(...lines.map((l) => l.length)) * CHAR_W_PART) + 2,
 		h: lines.length * LINE_H_PART
@@ -450,7 +452,7 @@ function layoutOnce(c: DiagramCircuit, opts: LayoutOptions, gap: number): Drawin
 		rowsUsed.add(pl.row);
 		const idx = pl.lanes.map((l) => colIndex.get(l)!);
 		const proto = buildSymbol(p, { top: pl.top, pitch: 40, setting: settings.get(p.id), energized: opts.energized?.has(p.id) });
-		const ls = labelSize(labels.get(p.id)!);
+		const ls = labelSize(sizingLines.get(p.id)!);
 		const first = idx[0];
 		const last = idx[idx.length - 1];
 		leftExt[first] = Math.max(leftExt[first], proto.laneX[0]);
@@ -483,7 +485,7 @@ function layoutOnce(c: DiagramCircuit, opts: LayoutOptions, gap: number): Drawin
 		const shape = buildSymbol(p, { top: pl.top, pitch, setting: settings.get(p.id), energized: opts.energized?.has(p.id) });
 		const x = axis[idx[0]] - shape.laneX[0];
 		const y = rowY.get(pl.row)! + (ROW_H - shape.h) / 2;
-		const dp = makePart(p, shape, x, y, labels.get(p.id)!, settings.get(p.id) ?? null, labelSize);
+		const dp = makePart(p, shape, x, y, labels.get(p.id)!, settings.get(p.id) ?? null, labelSize, sizingLines.get(p.id)!);
 		drawn.push(dp);
 		drawnById.set(p.id, dp);
 	}
@@ -879,13 +881,14 @@ function makePart(
 	y: number,
 	lines: string[],
 	setting: string | null,
-	labelSize: (l: string[]) => { w: number; h: number }
+	labelSize: (l: string[]) => { w: number; h: number },
+	sizing: string[] = lines
 ): DrawnPart {
 	const pins: Record<string, { x: number; y: number }> = {};
 	for (const [k, v] of Object.entries(shape.pins)) pins[k] = { x: x + v.x, y: y + v.y };
 	let label: DrawnLabel | null = null;
 	if (lines.length) {
-		const s = labelSize(lines);
+		const s = labelSize(sizing);
 		// A splice's label sits above and right of it, clear of the four directions its wires leave in.
 		label =
 			p.type === 'splice'

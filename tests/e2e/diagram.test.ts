@@ -1,0 +1,242 @@
+// Browser test of WiringDiagram.svelte in Debian's Chromium: accessible names, roving keyboard focus,
+// the announced selection, 24 px targets on a 360 px phone, live mode against the engine, and an
+// axe-core scan (no serious or critical violation). The component is built with Vite into a static
+// page under .tmp/ and served on loopback, so the test needs neither the app nor its database.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { mkdirSync, readFileSync, rmSync, writeFileSync, existsSync } from 'node:fs';
+import { createServer, type Server } from 'node:http';
+import path from 'node:path';
+import type { BrowserContext, Page } from 'playwright-core';
+import { build } from 'vite';
+import { svelte } from '@sveltejs/vite-plugin-svelte';
+import { launchBrowser } from '../helpers/browser';
+import { parseCircuit, solveCircuit } from '../../src/lib/circuit/index';
+import { readLayoutHints } from '../../src/lib/diagram/index';
+
+const ROOT = path.resolve('.');
+const WORK = path.join(ROOT, '.tmp', 'diagram-e2e');
+const DIST = path.join(WORK, 'dist');
+const SHOTS = path.join(ROOT, 'screenshots');
+const AXE = path.join(ROOT, 'node_modules/axe-core/axe.min.js');
+const abs = (p: string) => JSON.stringify(path.join(ROOT, p));
+const raw = (p: string) => JSON.stringify(`${path.join(ROOT, p)}?raw`);
+
+const ENTRY = `
+import { mount } from 'svelte';
+import WiringDiagram from ${abs('src/lib/components/WiringDiagram.svelte')};
+import { readDiagramCircuit } from ${abs('src/lib/diagram/index.ts')};
+import { tracePath, sharedPath } from ${abs('src/lib/circuit/index.ts')};
+import fan from ${raw('content/circuits/cooling-fan-relay.yaml')};
+import courtesy from ${raw('content/circuits/courtesy-lamps.yaml')};
+import wiper from ${raw('content/circuits/wiper-park.yaml')};
+
+const fanC = readDiagramCircuit(fan);
+mount(WiringDiagram, { target: document.getElementById('select'), props: { circuit: fanC.diagram, mode: 'select', state: 'hot',
+  onselect: (id) => { document.getElementById('picked').textContent = id ?? '(none)'; } } });
+const court = readDiagramCircuit(courtesy);
+const control = tracePath(court.circuit, { state: 'both-open', through: 'S1' });
+const load = tracePath(court.circuit, { state: 'both-open', through: 'S2' });
+const shared = sharedPath(control, load, court.circuit);
+mount(WiringDiagram, { target: document.getElementById('overlay'), props: { circuit: court.diagram, mode: 'overlay', state: 'both-open',
+  overlays: [ { name: 'driver door path', elements: control.elements }, { name: 'passenger door path', elements: load.elements }, { name: 'shared', elements: shared.elements } ] } });
+const wip = readDiagramCircuit(wiper);
+mount(WiringDiagram, { target: document.getElementById('live'), props: { circuit: wip.diagram, engine: wip.circuit, mode: 'live', state: 'off-mid-sweep' } });
+`;
+
+const HTML = `<!doctype html>
+<html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
+<title>Wiring diagrams</title>
+<style>body{margin:0;padding:8px;font-family:system-ui,sans-serif;background:#f6f3ec;color:#1f2933} main{display:grid;gap:24px;max-width:72rem;margin:0 auto} section{min-width:0}</style>
+</head><body><main>
+<h1>Wiring diagrams</h1>
+<section><h2>Pick a part or wire</h2><div id="select"></div><p>Picked: <output id="picked">(none)</output></p></section>
+<section><h2>Current paths</h2><div id="overlay"></div></section>
+<section><h2>Bench</h2><div id="live"></div></section>
+</main><script type="module" src="./entry.js"></script></body></html>`;
+
+let server: Server;
+let base = '';
+let context: BrowserContext;
+let close: () => Promise<void>;
+let page: Page;
+
+beforeAll(async () => {
+	rmSync(WORK, { recursive: true, force: true });
+	mkdirSync(WORK, { recursive: true });
+	mkdirSync(SHOTS, { recursive: true });
+	writeFileSync(path.join(WORK, 'entry.js'), ENTRY);
+	writeFileSync(path.join(WORK, 'index.html'), HTML);
+	await build({
+		root: WORK,
+		configFile: false,
+		logLevel: 'warn',
+		plugins: [svelte({ configFile: false })],
+		resolve: { alias: { $lib: path.join(ROOT, 'src/lib') } },
+		build: { outDir: DIST, emptyOutDir: true, minify: false }
+	});
+	server = createServer((req, res) => {
+		const url = new URL(req.url ?? '/', 'http://127.0.0.1');
+		const file = path.join(DIST, url.pathname === '/' ? 'index.html' : url.pathname);
+		if (!file.startsWith(DIST) || !existsSync(file)) {
+			res.writeHead(404).end('not found');
+			return;
+		}
+		const type = file.endsWith('.js') ? 'text/javascript' : file.endsWith('.css') ? 'text/css' : 'text/html';
+		res.writeHead(200, { 'content-type': type }).end(readFileSync(file));
+	});
+	await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+	const addr = server.address();
+	base = `http://127.0.0.1:${typeof addr === 'object' && addr ? addr.port : 0}/`;
+	({ context, close } = await launchBrowser());
+	page = await context.newPage();
+	const errors: string[] = [];
+	page.on('pageerror', (e) => errors.push(e.message));
+	await page.goto(base);
+	await page.waitForSelector('#live svg [data-item]', { state: 'attached' });
+	expect(errors).toEqual([]);
+}, 180_000);
+
+afterAll(async () => {
+	await close?.();
+	await new Promise((r) => server?.close(r));
+});
+
+async function focusedItem(): Promise<{ id: string | null; name: string | null }> {
+	return page.evaluate(() => {
+		const el = document.activeElement;
+		return { id: el?.getAttribute('data-item') ?? null, name: el?.getAttribute('aria-label') ?? null };
+	});
+}
+
+describe('WiringDiagram in Chromium', () => {
+	it('names every part and wire the way a technician says it (wire ends from the circuit file)', async () => {
+		const names = await page.$$eval('#select [data-item]', (els) => els.map((e) => [e.getAttribute('data-item'), e.getAttribute('aria-label')]));
+		const byId = Object.fromEntries(names);
+		// cooling-fan-relay.yaml, third wire: { from: K1.85, to: S1.1, color: GN/BK }
+		expect(byId['W3']).toBe('wire W3, relay K1 pin 85 to switch S1 pin 1, colour GN/BK');
+		// FAN_FEED: { from: K1.87, to: M1.1 }
+		expect(byId['FAN_FEED']).toBe('wire FAN_FEED, relay K1 pin 87 to motor M1 pin 1, colour GN/WH');
+		expect(byId['F1']).toBe('fuse F1, 10 A');
+		expect(byId['S1']).toBe('switch S1, closed'); // state hot: { S1: closed }
+		const circuit = parseCircuit(readLayoutHints(readFileSync('content/circuits/cooling-fan-relay.yaml', 'utf8')).text);
+		for (const p of circuit.parts) expect(byId[p.id], p.id).toBeTruthy();
+		for (const w of circuit.wires) expect(byId[w.id], w.id).toMatch(new RegExp(`^wire ${w.id}, `));
+	});
+
+	it('keeps one tab stop per diagram (roving tabindex)', async () => {
+		for (const id of ['#select', '#overlay', '#live']) {
+			const zeros = await page.$$eval(`${id} [data-item][tabindex="0"]`, (els) => els.length);
+			expect(zeros, id).toBe(1);
+		}
+	});
+
+	it('moves focus with Tab and the arrow keys, selects with Enter and announces the selection', async () => {
+		await page.setViewportSize({ width: 1280, height: 900 });
+		await page.evaluate(() => (document.activeElement as HTMLElement | null)?.blur());
+		await page.focus('body');
+		let f = await focusedItem();
+		for (let i = 0; i < 10 && f.id === null; i++) {
+			await page.keyboard.press('Tab');
+			f = await focusedItem();
+		}
+		expect(f.id).toBe('F1'); // the first part in the file
+		await page.keyboard.press('ArrowDown');
+		const down = await focusedItem();
+		expect(down.id).not.toBe('F1');
+		const pos = async (id: string) =>
+			page.$eval(`#select [data-item="${id}"]`, (e) => {
+				const r = e.getBoundingClientRect();
+				return r.y + r.height / 2;
+			});
+		expect(await pos(down.id!)).toBeGreaterThan(await pos('F1'));
+		await page.keyboard.press('ArrowRight');
+		const right = await focusedItem();
+		expect(right.id).not.toBe(down.id);
+		await page.keyboard.press('Enter');
+		expect(await page.textContent('#picked')).toBe(right.id);
+		const said = await page.$eval('#select [aria-live]', (e) => e.textContent);
+		expect(said).toBe(`Selected: ${right.name}`);
+		expect(await page.getAttribute(`#select [data-item="${right.id}"]`, 'aria-pressed')).toBe('true');
+		await page.keyboard.press('Escape');
+		expect(await page.textContent('#picked')).toBe('(none)');
+		// Tab leaves the diagram in one step.
+		await page.keyboard.press('Tab');
+		const after = await page.evaluate(() => document.activeElement?.closest('#select svg') !== null);
+		expect(after).toBe(false);
+	});
+
+	it('selects with a click too', async () => {
+		await page.click('#select [data-item="M1"]');
+		expect(await page.textContent('#picked')).toBe('M1');
+	});
+
+	it('gives every target at least 24 x 24 CSS px on a 360 px phone at the default zoom', async () => {
+		await page.setViewportSize({ width: 360, height: 780 });
+		await page.waitForTimeout(100);
+		const small = await page.$$eval('[data-item] .wd-hit', (els) =>
+			els
+				.map((el) => {
+					const r = el.getBoundingClientRect();
+					const svg = (el as SVGGraphicsElement).ownerSVGElement!;
+					const scale = svg.getBoundingClientRect().width / svg.viewBox.baseVal.width;
+					let w = r.width;
+					let h = r.height;
+					if (el.tagName === 'polyline') {
+						const sw = Number(el.getAttribute('stroke-width')) * scale;
+						w += sw;
+						h += sw;
+					}
+					return { id: el.parentElement?.getAttribute('data-item'), w, h };
+				})
+				.filter((t) => t.w < 24 || t.h < 24)
+		);
+		expect(small).toEqual([]);
+		const fits = await page.$eval('#select svg', (s) => s.getBoundingClientRect().width <= 360);
+		expect(fits).toBe(true);
+		await page.setViewportSize({ width: 1280, height: 900 });
+	});
+
+	it('live mode: a switch flips and the meter shows what the engine computes', async () => {
+		const text = readFileSync('content/circuits/wiper-park.yaml', 'utf8');
+		const circuit = parseCircuit(text);
+		const reading = async () => (await page.textContent('#live output[aria-label="Meter reading"]'))?.trim();
+		// Red lead starts on the first test point (A: S1.B), black on GND; state off-mid-sweep.
+		const before = solveCircuit(circuit, { state: 'off-mid-sweep' });
+		if ('error' in before) throw new Error('unexpected dead short');
+		expect(await reading()).toBe(`${before.points.A.volts.toFixed(2)} V`);
+		await page.selectOption('#live select >> nth=0', 'C'); // red lead on C: M1.1
+		expect(await reading()).toBe(`${before.points.C.volts.toFixed(2)} V`);
+		// S1 off -> low gives the file's state "low" (S1: low, S2: closed).
+		await page.click('#live [data-item="S1"]');
+		const low = solveCircuit(circuit, { state: 'low' });
+		if ('error' in low) throw new Error('unexpected dead short');
+		expect(await reading()).toBe(`${low.points.C.volts.toFixed(2)} V`);
+		expect(await page.$eval('#live [aria-live]', (e) => e.textContent)).toContain('Switch S1 to low');
+		// A test lamp on C to GND: the engine's lamp verdict.
+		await page.selectOption('#live select >> nth=2', 'C');
+		const lamp = solveCircuit(circuit, { state: 'low', lamp: 'C' });
+		expect(await page.textContent('#live output[aria-label="Test lamp"]')).toBe('error' in lamp ? 'dead short' : lamp.lamp);
+	});
+
+	it('passes axe-core with no serious or critical violation', async () => {
+		await page.addScriptTag({ path: AXE });
+		const violations = await page.evaluate(async () => {
+			const axe = (window as unknown as { axe: { run: (ctx: Document, o: object) => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe;
+			const r = await axe.run(document, { resultTypes: ['violations'] });
+			return r.violations.map((v) => ({ id: v.id, impact: v.impact, nodes: v.nodes.slice(0, 3).map((n) => n.target.join(' ')) }));
+		});
+		expect(violations.filter((v) => v.impact === 'serious' || v.impact === 'critical')).toEqual([]);
+	});
+
+	it('saves desktop and phone screenshots', async () => {
+		for (const [name, size] of [
+			['desktop', { width: 1280, height: 900 }],
+			['phone', { width: 360, height: 780 }]
+		] as const) {
+			await page.setViewportSize(size);
+			await page.waitForTimeout(100);
+			await page.screenshot({ path: path.join(SHOTS, `diagram-${name}.png`), fullPage: true });
+			expect(existsSync(path.join(SHOTS, `diagram-${name}.png`))).toBe(true);
+		}
+	});
+});
