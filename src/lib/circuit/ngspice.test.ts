@@ -258,6 +258,38 @@ function randomNetwork(seed: number): RandomNet {
 	return { yaml, netlist, names: [...names].map((n) => `${n}=${merged(n)}`), nodeCount, islandSize, islandPowered };
 }
 
+describe('the ngspice harness itself', () => {
+	it('reproduces OpenStax College Physics Example 21.1 (12.0 V; 1.00, 6.00, 13.0 ohm in series)', async () => {
+		const v = await ng.op(
+			netlistFromNetwork({
+				nodes: ['GND', 'B+', 'a', 'b'],
+				resistors: [
+					{ id: 'r1', a: 'B+', b: 'a', ohms: 1 },
+					{ id: 'r2', a: 'a', b: 'b', ohms: 6 },
+					{ id: 'r3', a: 'b', b: 'GND', ohms: 13 }
+				],
+				vsources: [{ id: 'bat', plus: 'B+', minus: 'GND', volts: 12 }]
+			})
+		);
+		// OpenStax Ex. 21.1: 0.600 A; drops 0.600, 3.60, 7.80 V -> a = 11.4 V, b = 7.80 V
+		expect(v['B+']).toBeCloseTo(12, 9);
+		expect(v.a).toBeCloseTo(11.4, 9);
+		expect(v.b).toBeCloseTo(7.8, 9);
+		expect(v.GND).toBe(0);
+	});
+	it('floats an island on its meter alone, and rejects a zero-ohm resistor', async () => {
+		const v = await ng.op(
+			netlistFromNetwork({
+				nodes: ['GND', 'B+', 'x'],
+				resistors: [{ id: 'meter:x', a: 'x', b: 'GND', ohms: METER_OHMS }],
+				vsources: [{ id: 'bat', plus: 'B+', minus: 'GND', volts: 12 }]
+			})
+		);
+		expect(v.x).toBe(0);
+		expect(() => netlistFromNetwork({ nodes: ['GND', 'a'], resistors: [{ id: 'r', a: 'a', b: 'GND', ohms: 0 }], vsources: [] })).toThrow(/ohms/);
+	});
+});
+
 describe('engine against ngspice: seeded random networks', () => {
 	it(`solves ${NETWORK_COUNT} random networks of 5-60 nodes to within 1 mV of ngspice at every node`, async () => {
 		let compared = 0;
