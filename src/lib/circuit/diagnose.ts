@@ -6,8 +6,8 @@ import { ObservationError } from './errors';
 import { applyFault, formatFault, standardFaults } from './faults';
 import { FUSE_TYPES, LOAD_TYPES, type Circuit, type Part } from './model';
 import { compileNet } from './netlist';
-import { buildResult } from './results';
-import { settle } from './settle';
+import { buildResult, partState, readingClass, reachableNodes } from './results';
+import { settle, type Settled } from './settle';
 import type { Diagnosis, Observation, SolveResult } from './types';
 
 /** Statuses a part can be observed in, or null when it has none. */
@@ -82,14 +82,39 @@ export function diagnose(c: Circuit, observations: Observation[]): Diagnosis {
 		cache.set(key, r);
 		return r;
 	};
+	// statuses and readings only for what was observed, solved once per fault and state
+	const partIdx = new Map(c.parts.map((p, i) => [p.id, i]));
+	const pointIdx = new Map(c.points.map((p, i) => [p.label, i]));
+	const matchesNow = (s: Settled, o: Observation): boolean => {
+		if (s.dead) return false;
+		for (const id in o.parts) if (partState(s, partIdx.get(id)!, null).status !== o.parts[id]) return false;
+		let reach: Uint8Array | null = null;
+		for (const id in o.points) {
+			const node = s.net.pointNode[pointIdx.get(id)!];
+			reach ??= reachableNodes(s);
+			if (readingClass(s.work.V[node], s.net.emf, !!reach[node]) !== o.points[id]) return false;
+		}
+		return true;
+	};
 	const cand: number[] = [];
 	for (let fi = 0; fi < faults.length; fi++) {
 		let ok = true;
-		for (const o of observations)
-			if (!matches(outcome(fi, o.state), o)) {
-				ok = false;
-				break;
+		for (const o of observations) {
+			const key = `${fi}|${o.state}`;
+			const known = cache.get(key);
+			if (known !== undefined) {
+				if (!matches(known, o)) ok = false;
+			} else {
+				let fc = circuits.get(fi);
+				if (!fc) {
+					const f = faults[fi];
+					fc = f ? applyFault(c, f) : c;
+					circuits.set(fi, fc);
+				}
+				if (!matchesNow(settle(compileNet(fc, o.state, null)), o)) ok = false;
 			}
+			if (!ok) break;
+		}
 		if (ok) cand.push(fi);
 	}
 	const names = cand.map((fi) => (faults[fi] ? formatFault(faults[fi]!) : 'none'));

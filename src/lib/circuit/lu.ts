@@ -54,20 +54,61 @@ export function luFactor(a: Float64Array, n: number, perm: Int32Array, spans: Sp
 		perm[i] = i;
 	}
 	const tol = scale * PIVOT_REL_TOL;
+	// rows that have entries left of the diagonal, bucketed by their first column: while no row swap
+	// happens, the rows below k with a nonzero in column k are exactly those bucketed at columns <= k
+	ensureBook(n);
+	const head = bookHead;
+	const next = bookNext;
+	const act = bookAct;
+	head.fill(-1, 0, n);
+	for (let i = n - 1; i >= 0; i--) {
+		const c = first[i];
+		if (c < i) {
+			next[i] = head[c];
+			head[c] = i;
+		}
+	}
+	let na = 0;
+	let swapped = false;
 	for (let k = 0; k < n; k++) {
+		if (!swapped) {
+			let m = 0;
+			for (let q = 0; q < na; q++) if (act[q] > k) act[m++] = act[q];
+			na = m;
+			for (let r = head[k]; r >= 0; r = next[r]) act[na++] = r;
+		}
 		let p = -1;
 		let best = tol;
-		for (let i = k; i < n; i++) {
-			if (first[i] > k) continue;
-			const v = a[i * n + k];
-			const m = v < 0 ? -v : v;
-			if (m > best) {
-				best = m;
-				p = i;
+		if (swapped) {
+			for (let i = k; i < n; i++) {
+				if (first[i] > k) continue;
+				const v = a[i * n + k];
+				const m = v < 0 ? -v : v;
+				if (m > best) {
+					best = m;
+					p = i;
+				}
+			}
+		} else {
+			const v = a[k * n + k];
+			const mk = v < 0 ? -v : v;
+			if (first[k] <= k && mk > best) {
+				best = mk;
+				p = k;
+			}
+			for (let q = 0; q < na; q++) {
+				const i = act[q];
+				const x = a[i * n + k];
+				const m = x < 0 ? -x : x;
+				if (m > best) {
+					best = m;
+					p = i;
+				}
 			}
 		}
 		if (p < 0) throw new SingularMatrixError(k);
 		if (p !== k) {
+			swapped = true;
 			const rk = k * n;
 			const rp = p * n;
 			const lo = Math.min(first[k], first[p]);
@@ -90,17 +131,33 @@ export function luFactor(a: Float64Array, n: number, perm: Int32Array, spans: Sp
 		const rk = k * n;
 		const piv = a[rk + k];
 		const lk = last[k];
-		for (let i = k + 1; i < n; i++) {
-			if (first[i] > k) continue;
-			const ri = i * n;
-			const m = a[ri + k];
-			if (m === 0) continue;
-			const f = m / piv;
-			a[ri + k] = f;
-			for (let j = k + 1; j <= lk; j++) a[ri + j] -= f * a[rk + j];
-			if (lk > last[i]) last[i] = lk;
-		}
+		if (swapped) {
+			for (let i = k + 1; i < n; i++) {
+				if (first[i] > k) continue;
+				eliminate(a, n, i, k, rk, piv, lk, last);
+			}
+		} else for (let q = 0; q < na; q++) eliminate(a, n, act[q], k, rk, piv, lk, last);
 	}
+}
+
+function eliminate(a: Float64Array, n: number, i: number, k: number, rk: number, piv: number, lk: number, last: Int32Array): void {
+	const ri = i * n;
+	const m = a[ri + k];
+	if (m === 0) return;
+	const f = m / piv;
+	a[ri + k] = f;
+	for (let j = k + 1; j <= lk; j++) a[ri + j] -= f * a[rk + j];
+	if (lk > last[i]) last[i] = lk;
+}
+
+let bookHead = new Int32Array(0);
+let bookNext = new Int32Array(0);
+let bookAct = new Int32Array(0);
+function ensureBook(n: number): void {
+	if (bookHead.length >= n) return;
+	bookHead = new Int32Array(n);
+	bookNext = new Int32Array(n);
+	bookAct = new Int32Array(n);
 }
 
 /** Solves L·U·x = P·b for a matrix factored by `luFactor` with the same spans; writes x (may not alias b). */

@@ -221,11 +221,20 @@ export function loadStatus(amps: number, emf: number, ohms: number): 'on' | 'wea
 	return 'off';
 }
 
+/** An object with every file node name as a key, in order, to copy for each result. */
+const nodeTemplates = new WeakMap<object, Record<string, number>>();
+
 /** Builds the spec's result object (keys in file order) from a settled solve. */
 export function buildResult(s: Settled, fault: string | null, needAmps: boolean): SolveResult {
 	const { net, cfg, work: w } = s;
 	const c = net.circuit;
-	const nodes: Record<string, number> = {};
+	let tpl = nodeTemplates.get(c);
+	if (!tpl) {
+		tpl = {};
+		for (let i = 0; i < c.fileNodeCount; i++) tpl[c.nodeNames[i]] = 0;
+		nodeTemplates.set(c, tpl);
+	}
+	const nodes: Record<string, number> = { ...tpl };
 	for (let i = 0; i < c.fileNodeCount; i++) nodes[c.nodeNames[i]] = roundVolts(w.V[i]);
 	const reach = reachableNodes(s);
 	const points: Record<string, { volts: number; reads: Reads }> = {};
@@ -235,59 +244,8 @@ export function buildResult(s: Settled, fault: string | null, needAmps: boolean)
 		points[pt.label] = { volts: roundVolts(w.V[i]), reads: readingClass(w.V[i], net.emf, !!reach[i]) };
 	}
 	const cur = needAmps ? elementCurrents(s).amps : null;
-	const fs = fuseSlots(net);
-	const ds = diodeSlots(net);
-	const byPart = net.partEls;
-	const ampsOf = (i: number): number => {
-		if (cur) return Math.abs(cur[i]);
-		return resistiveOn(net, cfg, i, fs, ds) ? Math.abs(elementAmps(net, w, i)) : 0;
-	};
 	const parts: Record<string, { status: string | null; amps: number }> = {};
-	c.parts.forEach((p, pi) => {
-		const els = byPart[pi];
-		let status: string | null = null;
-		let amps = 0;
-		if (FUSE_TYPES.has(p.type)) {
-			const e = els.find((i) => net.code[i] === Code.Fuse);
-			const open = e === undefined || cfg.fuseOpen[fs[e]] === 1;
-			status = open ? (p.type === 'breaker' ? 'tripped' : 'blown') : 'ok';
-			amps = open ? 0 : ampsOf(e!);
-		} else if (p.type === 'relay') {
-			const r = net.relayOfPart[pi];
-			const st = cfg.relay[r];
-			status = st === 2 ? 'chattering' : st === 1 ? 'energized' : 'released';
-			const coil = net.relayCoil[r];
-			amps = coil >= 0 ? ampsOf(coil) : 0;
-		} else if (p.type === 'switch') {
-			if (p.positions) {
-				const st = net.state ? c.states.find((x) => x.name === net.state) : undefined;
-				status = st?.switches[p.id] ?? p.positions[0].name;
-				for (const e of els) if (net.code[e] === Code.Ideal) amps = Math.max(amps, cur ? Math.abs(cur[e]) : 0);
-			} else {
-				const e = els[0];
-				const closed = e !== undefined && net.code[e] === Code.Ideal;
-				status = closed ? 'closed' : 'open';
-				amps = closed && cur ? Math.abs(cur[e]) : 0;
-			}
-		} else if (LOAD_TYPES.has(p.type)) {
-			const e = els[0];
-			amps = e !== undefined ? ampsOf(e) : 0;
-			status = loadStatus(amps, net.emf, p.ohms!);
-		} else if (p.type === 'diode') {
-			const e = els[0];
-			const on = e !== undefined && cfg.diodeOn[ds[e]] === 1;
-			status = on ? 'conducting' : 'blocking';
-			amps = on ? ampsOf(e) : 0;
-		} else if (p.type === 'supply') {
-			const e = els[0];
-			amps = e !== undefined && cur ? Math.abs(cur[e]) : 0;
-		} else if (p.type === 'resistor') {
-			amps = els[0] !== undefined ? ampsOf(els[0]) : 0;
-		} else if (p.type === 'connector' || p.type === 'ground') {
-			for (const e of els) amps = Math.max(amps, net.code[e] === Code.Ideal ? (cur ? Math.abs(cur[e]) : 0) : ampsOf(e));
-		}
-		parts[p.id] = { status, amps: roundAmps(amps) };
-	});
+	for (let pi = 0; pi < c.parts.length; pi++) parts[c.parts[pi].id] = partState(s, pi, cur);
 	const result: SolveResult = { state: net.state, fault, nodes, points, parts };
 	if (net.lampEl >= 0) {
 		const I = Math.abs(elementAmps(net, w, net.lampEl));
@@ -295,6 +253,65 @@ export function buildResult(s: Settled, fault: string | null, needAmps: boolean)
 		result.lamp = st === 'on' ? 'lit' : st === 'weak' ? 'dim' : 'dark';
 	}
 	return result;
+}
+
+/**
+ * Status and current magnitude (A, rounded to 0.1 mA) of part `pi`. `cur` holds element currents
+ * from `elementCurrents`; without it, 0 Ω elements and sources report 0 A (statuses do not need them).
+ */
+export function partState(s: Settled, pi: number, cur: Float64Array | null): { status: string | null; amps: number } {
+	const { net, cfg, work: w } = s;
+	const c = net.circuit;
+	const p = c.parts[pi];
+	const fs = net.fuseSlot;
+	const ds = net.diodeSlot;
+	const els = net.partEls[pi];
+	const ampsOf = (i: number): number => {
+		if (cur) return Math.abs(cur[i]);
+		return resistiveOn(net, cfg, i, fs, ds) ? Math.abs(elementAmps(net, w, i)) : 0;
+	};
+	let status: string | null = null;
+	let amps = 0;
+	if (FUSE_TYPES.has(p.type)) {
+		const e = els.find((i) => net.code[i] === Code.Fuse);
+		const open = e === undefined || cfg.fuseOpen[fs[e]] === 1;
+		status = open ? (p.type === 'breaker' ? 'tripped' : 'blown') : 'ok';
+		amps = open ? 0 : ampsOf(e!);
+	} else if (p.type === 'relay') {
+		const r = net.relayOfPart[pi];
+		const st = cfg.relay[r];
+		status = st === 2 ? 'chattering' : st === 1 ? 'energized' : 'released';
+		const coil = net.relayCoil[r];
+		amps = coil >= 0 ? ampsOf(coil) : 0;
+	} else if (p.type === 'switch') {
+		if (p.positions) {
+			const st = net.state ? c.states.find((x) => x.name === net.state) : undefined;
+			status = st?.switches[p.id] ?? p.positions[0].name;
+			for (const e of els) if (net.code[e] === Code.Ideal) amps = Math.max(amps, cur ? Math.abs(cur[e]) : 0);
+		} else {
+			const e = els[0];
+			const closed = e !== undefined && net.code[e] === Code.Ideal;
+			status = closed ? 'closed' : 'open';
+			amps = closed && cur ? Math.abs(cur[e]) : 0;
+		}
+	} else if (LOAD_TYPES.has(p.type)) {
+		const e = els[0];
+		amps = e !== undefined ? ampsOf(e) : 0;
+		status = loadStatus(amps, net.emf, p.ohms!);
+	} else if (p.type === 'diode') {
+		const e = els[0];
+		const on = e !== undefined && cfg.diodeOn[ds[e]] === 1;
+		status = on ? 'conducting' : 'blocking';
+		amps = on ? ampsOf(e) : 0;
+	} else if (p.type === 'supply') {
+		const e = els[0];
+		amps = e !== undefined && cur ? Math.abs(cur[e]) : 0;
+	} else if (p.type === 'resistor') {
+		amps = els[0] !== undefined ? ampsOf(els[0]) : 0;
+	} else if (p.type === 'connector' || p.type === 'ground') {
+		for (const e of els) amps = Math.max(amps, net.code[e] === Code.Ideal ? (cur ? Math.abs(cur[e]) : 0) : ampsOf(e));
+	}
+	return { status, amps: roundAmps(amps) };
 }
 
 /** Element-level currents of a settled solve (every conducting element, open ones omitted). */

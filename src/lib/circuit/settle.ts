@@ -20,9 +20,13 @@ export type SettleOptions = { forced?: Map<number, 0 | 1>; noFuseOpens?: boolean
 /** The outcome of settling: the final configuration and solution, or the source of a dead short. */
 export type Settled = { net: Net; cfg: Config; work: Work; dead: boolean; events: SettleEvent[] };
 
-/** Settles a compiled network. Never throws for a network built from a valid circuit. */
+/** One set of solve buffers per compiled network, reused by the next settle of that network. */
+const pooled = new WeakMap<Net, Work>();
+
+/** Settles a compiled network (its buffers are reused by the next settle of the same network, so read results first). Never throws for a network built from a valid circuit. */
 export function settle(net: Net, opts: SettleOptions = {}, work?: Work): Settled {
-	const w = work ?? makeWork(net);
+	let w = work ?? pooled.get(net);
+	if (!w) pooled.set(net, (w = makeWork(net)));
 	const nr = net.relayPart.length;
 	const cfg: Config = {
 		fuseOpen: new Uint8Array(net.fuses.length),
