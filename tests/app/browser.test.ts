@@ -3,7 +3,7 @@ import { mkdirSync } from 'node:fs';
 import { randomBytes } from 'node:crypto';
 import type { BrowserContext, Page } from 'playwright-core';
 import { APP_URL } from '../helpers/app';
-import { launchBrowser } from '../helpers/browser';
+import { launchBrowser, openPage } from '../helpers/browser';
 import { DEMO_PASSWORD } from '../../src/lib/server/seed/demo';
 
 const SHOTS = 'screenshots';
@@ -28,7 +28,7 @@ async function shoot(page: Page, name: string) {
 }
 
 async function signInWithForm(page: Page, email: string, password: string) {
-	await page.goto(`${APP_URL}/signin`);
+	await openPage(page, `${APP_URL}/signin`);
 	await page.getByLabel('E-mail').fill(email);
 	await page.getByLabel('Password').fill(password);
 	await page.getByRole('button', { name: 'Sign in' }).click();
@@ -41,11 +41,21 @@ const newPassword = 'voltage drop under load';
 describe('in the browser (Chromium)', () => {
 	it('signs up, lands on the learner home, is refused the site-admin page, signs out', async () => {
 		const page = await context.newPage();
-		await page.goto(APP_URL);
+		await openPage(page, APP_URL);
 		await expect.poll(() => page.getByRole('link', { name: 'Create an account' }).first().isVisible()).toBe(true);
 		await shoot(page, 'landing');
 
-		await page.goto(`${APP_URL}/signup`);
+		await openPage(page, `${APP_URL}/signup`);
+		await page.getByLabel('E-mail').fill('petra@');
+		await page.getByLabel('Password').fill('short');
+		await page.getByRole('button', { name: 'Create account' }).click();
+		await expect.poll(() => page.getByRole('alert').textContent()).toContain('Your account was not created yet');
+		expect(await page.locator('#field-name-error').textContent()).toContain('Enter your name');
+		expect(await page.locator('#field-email-error').textContent()).toContain('name@example.org');
+		expect(await page.locator('#field-password-error').textContent()).toContain('at least 12');
+		expect(await page.getByLabel('E-mail').inputValue()).toBe('petra@');
+		await shoot(page, 'signup-errors');
+
 		await page.getByLabel('Your name').fill('Petra Lindqvist-Moore');
 		await page.getByLabel('E-mail').fill(newEmail);
 		await page.getByLabel('Password').fill(newPassword);
@@ -66,14 +76,15 @@ describe('in the browser (Chromium)', () => {
 		await page.screenshot({ path: `${SHOTS}/menu-phone.png` });
 		await page.setViewportSize(DESKTOP);
 
-		const refused = await page.goto(`${APP_URL}/admin/users`);
+		const refused = await openPage(page, `${APP_URL}/admin/users`);
 		expect(refused?.status()).toBe(403);
 		expect(await page.getByRole('heading', { level: 1 }).textContent()).toBe('Not for your account');
+		await shoot(page, 'refused');
 
-		await page.goto(`${APP_URL}/home`);
+		await openPage(page, `${APP_URL}/home`);
 		await page.getByRole('navigation', { name: 'Main' }).getByRole('button', { name: 'Sign out' }).first().click();
 		await page.waitForURL(`${APP_URL}/`);
-		const afterSignOut = await page.goto(`${APP_URL}/home`);
+		const afterSignOut = await openPage(page, `${APP_URL}/home`);
 		expect(new URL(page.url()).pathname).toBe('/signin');
 		expect(afterSignOut?.status()).toBe(200);
 		await shoot(page, 'signin');
@@ -82,7 +93,7 @@ describe('in the browser (Chromium)', () => {
 
 	it('shows a wrong password message on the sign-in form and keeps the e-mail', async () => {
 		const page = await context.newPage();
-		await page.goto(`${APP_URL}/signin`);
+		await openPage(page, `${APP_URL}/signin`);
 		await page.getByLabel('E-mail').fill(newEmail);
 		await page.getByLabel('Password').fill('not my password at all');
 		await page.getByRole('button', { name: 'Sign in' }).click();

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext } from 'playwright-core';
 import { APP_URL } from '../helpers/app';
-import { launchBrowser } from '../helpers/browser';
+import { launchBrowser, openPage } from '../helpers/browser';
 import { DEMO_PASSWORD } from '../../src/lib/server/seed/demo';
 
 let context: BrowserContext;
@@ -19,9 +19,9 @@ describe('the built app serves everything itself', () => {
 		});
 
 		const page = await context.newPage();
-		await page.goto(APP_URL);
+		await openPage(page, APP_URL);
 		await page.evaluate(() => document.fonts.ready);
-		await page.goto(`${APP_URL}/signin`);
+		await openPage(page, `${APP_URL}/signin`);
 		await page.getByLabel('E-mail').fill('learner@harrowcreek.example');
 		await page.getByLabel('Password').fill(DEMO_PASSWORD);
 		await page.getByRole('button', { name: 'Sign in' }).click();

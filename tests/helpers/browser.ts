@@ -1,5 +1,5 @@
 // Debian's Chromium through playwright-core, with the flags this machine and CI need.
-import { chromium, type BrowserContext } from 'playwright-core';
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import { mkdtemp, rm } from 'node:fs/promises';
 import path from 'node:path';
 
@@ -31,4 +31,11 @@ export async function launchBrowser(): Promise<{ context: BrowserContext; close:
 			await rm(userDataDir, { recursive: true, force: true });
 		}
 	};
+}
+
+/** Opens a page and waits until the app has hydrated (the root layout sets html[data-ready]). */
+export async function openPage(page: Page, url: string) {
+	const response = await page.goto(url);
+	await page.waitForSelector('html[data-ready="true"]', { state: 'attached' });
+	return response;
 }

@@ -23,7 +23,7 @@ export function requireRole(event: Pick<RequestEvent, 'locals' | 'url'>, ...role
 	const user = requireUser(event);
 	if (!roles.some((role) => user.roles.includes(role))) {
 		const names = roles.map((r) => ROLE_LABELS[r]).join(' or ');
-		error(403, `This page is for the ${names} role. If you need it, ask your site admin.`);
+		error(403, `This page is for the ${names} role. If you need it, ask a site admin.`);
 	}
 	return user;
 }
