@@ -12,6 +12,7 @@ import { svelte } from '@sveltejs/vite-plugin-svelte';
 import { launchBrowser } from '../helpers/browser';
 import { parseCircuit, solveCircuit } from '../../src/lib/circuit/index';
 import { readLayoutHints } from '../../src/lib/diagram/index';
+import { loadCircuits } from '../../src/lib/server/content/circuits';
 
 const ROOT = path.resolve('.');
 const WORK = path.join(ROOT, '.tmp', 'diagram-e2e');
@@ -54,6 +55,19 @@ const HTML = `<!doctype html>
 <section><h2>Bench</h2><div id="live"></div></section>
 </main><script type="module" src="./entry.js"></script></body></html>`;
 
+const GALLERY_ENTRY = `
+import { mount } from 'svelte';
+import CircuitGallery from ${abs('src/lib/components/CircuitGallery.svelte')};
+import circuits from './gallery.json';
+mount(CircuitGallery, { target: document.getElementById('gallery'), props: { circuits } });
+`;
+
+const GALLERY_HTML = `<!doctype html>
+<html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
+<title>Circuit gallery</title>
+<style>body{margin:0;padding:8px;font-family:system-ui,sans-serif;background:#f6f3ec;color:#1f2933} main{max-width:72rem;margin:0 auto}</style>
+</head><body><main><h1>Circuit gallery</h1><div id="gallery"></div></main><script type="module" src="./gallery-entry.js"></script></body></html>`;
+
 let server: Server;
 let base = '';
 let context: BrowserContext;
@@ -66,13 +80,21 @@ beforeAll(async () => {
 	mkdirSync(SHOTS, { recursive: true });
 	writeFileSync(path.join(WORK, 'entry.js'), ENTRY);
 	writeFileSync(path.join(WORK, 'index.html'), HTML);
+	writeFileSync(path.join(WORK, 'gallery-entry.js'), GALLERY_ENTRY);
+	writeFileSync(path.join(WORK, 'gallery.html'), GALLERY_HTML);
+	writeFileSync(path.join(WORK, 'gallery.json'), JSON.stringify(await loadCircuits()));
 	await build({
 		root: WORK,
 		configFile: false,
 		logLevel: 'warn',
 		plugins: [svelte({ configFile: false })],
 		resolve: { alias: { $lib: path.join(ROOT, 'src/lib') } },
-		build: { outDir: DIST, emptyOutDir: true, minify: false }
+		build: {
+			outDir: DIST,
+			emptyOutDir: true,
+			minify: false,
+			rollupOptions: { input: { index: path.join(WORK, 'index.html'), gallery: path.join(WORK, 'gallery.html') } }
+		}
 	});
 	server = createServer((req, res) => {
 		const url = new URL(req.url ?? '/', 'http://127.0.0.1');
@@ -226,6 +248,34 @@ describe('WiringDiagram in Chromium', () => {
 			return r.violations.map((v) => ({ id: v.id, impact: v.impact, nodes: v.nodes.slice(0, 3).map((n) => n.target.join(' ')) }));
 		});
 		expect(violations.filter((v) => v.impact === 'serious' || v.impact === 'critical')).toEqual([]);
+	});
+
+	it('the gallery draws every circuit file in each of its states and passes axe-core', async () => {
+		const gallery = await context.newPage();
+		await gallery.goto(`${base}gallery.html`);
+		await gallery.waitForSelector('#gallery svg [data-item]', { state: 'attached' });
+		const circuits = await loadCircuits();
+		const expected = circuits.reduce((n, c) => n + (c.ok ? c.states.length : 0), 0);
+		expect(circuits.every((c) => c.ok)).toBe(true);
+		expect(await gallery.$$eval('#gallery svg[data-circuit]', (els) => els.length)).toBe(expected);
+		await gallery.addScriptTag({ path: AXE });
+		const violations = await gallery.evaluate(async () => {
+			const axe = (window as unknown as { axe: { run: (ctx: Document, o: object) => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe;
+			const r = await axe.run(document, { resultTypes: ['violations'] });
+			return r.violations.map((v) => ({ id: v.id, impact: v.impact, nodes: v.nodes.slice(0, 3).map((n) => n.target.join(' ')) }));
+		});
+		expect(violations.filter((v) => v.impact === 'serious' || v.impact === 'critical')).toEqual([]);
+		await gallery.fill('#gallery input[type="search"]', 'wiper');
+		expect(await gallery.$$eval('#gallery section.gallery-circuit', (els) => els.length)).toBe(1);
+		for (const [name, size] of [
+			['desktop', { width: 1280, height: 900 }],
+			['phone', { width: 360, height: 780 }]
+		] as const) {
+			await gallery.setViewportSize(size);
+			await gallery.waitForTimeout(100);
+			await gallery.screenshot({ path: path.join(SHOTS, `gallery-${name}.png`), fullPage: true });
+		}
+		await gallery.close();
 	});
 
 	it('saves desktop and phone screenshots', async () => {

@@ -22,3 +22,4 @@ export {
 } from './render-svg';
 export type { OverlaySet, RenderOptions } from './render-svg';
 export { readDiagramCircuit, readLayoutHints, toDiagramCircuit, LayoutHintError } from './from-circuit';
+export type { GalleryCircuit, GalleryState } from './gallery';
