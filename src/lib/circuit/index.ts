@@ -23,3 +23,6 @@ export { solveCircuit, solveDetailed, settledNetwork } from './solve';
 export { tracePath, sharedPath } from './paths';
 export { parseObservations } from './observations';
 export { diagnose } from './diagnose';
+export { explainSolve } from './explain';
+export type { Explanation, DropExplanation, PointExplanation, FuseExplanation, RelayExplanation, PathExplanation } from './explain';
+export type { SettleEvent } from './settle';

@@ -8,6 +8,7 @@ import type { Circuit } from './model';
 import { Code } from './netlist';
 import { deadShortElements, elementCurrents } from './results';
 import { runSolve } from './solve';
+import type { Settled } from './settle';
 import type { SolveOptions } from './types';
 
 /** Every element id a path can list, in the spec's order: parts first (relay coil then contact, connector cavities), then wires, in file order. */
@@ -41,8 +42,15 @@ export function tracePath(c: Circuit, o: SolveOptions & { through: string }): { 
 	if (!relay && !order.includes(through))
 		throw new SolveOptionError('through', `"${through}" is not an element of this circuit; name a part, a wire, K1.coil, K1.contact or a cavity like C1.3`);
 	const run = runSolve(c, o);
-	const s = run.settled;
-	if (s.dead) throw new DeadShortError(deadShortElements(s));
+	if (run.settled.dead) throw new DeadShortError(deadShortElements(run.settled));
+	return { elements: pathInSettled(run.settled, c, wanted) };
+}
+
+/**
+ * The path through the elements whose path ids are in `wanted`, in a settled (not dead) solve:
+ * ids in the spec's order.
+ */
+export function pathInSettled(s: Settled, c: Circuit, wanted: Set<string>): string[] {
 	const net = s.net;
 	const { amps } = elementCurrents(s);
 	const nn = net.nNodes;
@@ -88,7 +96,7 @@ export function tracePath(c: Circuit, o: SolveOptions & { through: string }): { 
 		const id = net.els[i].pathId;
 		if (id !== null) ids.push(id);
 	}
-	return { elements: sortIds(c, ids) };
+	return sortIds(c, ids);
 }
 
 /** The shared part of two paths: their intersection, in the spec's order. */
