@@ -835,16 +835,16 @@ function layoutOnce(c: DiagramCircuit, opts: LayoutOptions, gap: number): Drawin
 	if (bar) used.push({ key: 'bar', type: null, text: 'B+ bus', kind: 'bar' });
 	if (dots.length) used.push({ key: 'dot', type: null, text: 'junction', kind: 'dot' });
 	if (flags.length) used.push({ key: 'flag', type: null, text: 'test point', kind: 'flag' });
-	const ENTRY_W = 150;
+	const ENTRY_W = 140;
 	const perRow = Math.max(1, Math.floor((width - 2 * MARGIN) / ENTRY_W));
 	used.forEach((u, i) => {
 		const x = MARGIN + (i % perRow) * ENTRY_W;
-		const y = legendTop + 10 + Math.floor(i / perRow) * 50;
+		const y = legendTop + 6 + Math.floor(i / perRow) * 40;
 		const shape = u.type && u.key !== 'switch-positions' ? legendSymbol(u.type, u.led) : null;
 		legend.push({ key: u.key, text: u.text, x, y, shape, kind: u.kind });
 	});
 	const legendRows = Math.ceil(used.length / perRow);
-	height = legendTop + 10 + legendRows * 50 + 10;
+	height = legendTop + 6 + legendRows * 40 + 10;
 
 	const nodeOf: Record<string, string> = { 'B+': 'B+', GND: 'GND' };
 	for (const m of members) nodeOf[m] = nodeOfKey(m);

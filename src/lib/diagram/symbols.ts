@@ -282,31 +282,37 @@ function positionedSwitch(part: DiagramPart, opts: SymbolOptions): SymbolShape {
 	const all = positionPins(positions);
 	const top = all.filter((p) => opts.top.has(p));
 	const bottom = all.filter((p) => !opts.top.has(p));
+	const STEP = 30;
 	const cols = Math.max(top.length, bottom.length, 1);
-	const w = cols * 20 + 10;
+	const w = (cols - 1) * STEP + 30;
 	const pins: Record<string, SymbolPin> = {};
 	const xy: Record<string, [number, number]> = {};
+	// Commons centred over the outputs, so the wiper reads as one pole throwing to several contacts.
+	const offset = (n: number) => ((cols - n) * STEP) / 2;
 	top.forEach((p, i) => {
-		pins[p] = { x: 10 + i * 20, y: 0, exit: 'up' };
-		xy[p] = [10 + i * 20, 16];
+		const x = 10 + Math.round((offset(top.length) + i * STEP) / GRID) * GRID;
+		pins[p] = { x, y: 0, exit: 'up' };
+		xy[p] = [x, 17];
 	});
 	bottom.forEach((p, i) => {
-		pins[p] = { x: 10 + i * 20, y: 60, exit: 'down' };
-		xy[p] = [10 + i * 20, 44];
+		const x = 10 + i * STEP;
+		pins[p] = { x, y: 60, exit: 'down' };
+		xy[p] = [x, 43];
 	});
 	const names = Object.keys(positions);
 	const current = opts.setting && positions[opts.setting] ? opts.setting : names[0];
-	let body = rect(1, 9, w - 2, 42, 'sp-body sp-dash sp-thin');
+	let body = rect(1, 10, w - 2, 40, 'sp-body sp-dash sp-thin');
 	for (const p of all) {
 		const [x, y] = xy[p];
-		body += line(x, pins[p].y, x, y) + circle(x, y, 2, 'sp-fill') + text(x + 3, pins[p].y === 0 ? 8 : 59, p);
+		const atTop = pins[p].y === 0;
+		body += line(x, pins[p].y, x, y) + circle(x, y, 2.2, 'sp-fill') + text(x + 3, atTop ? 8 : 59, p);
 	}
 	for (const [a, b] of positions[current] ?? []) {
 		const [x1, y1] = xy[a];
 		const [x2, y2] = xy[b];
 		body += line(x1, y1, x2, y2, 'sp-body sp-thick');
 	}
-	return { w, h: 60, pins, body, laneX: [10], subs: [] };
+	return { w, h: 60, pins, body, laneX: [pins[top[0] ?? all[0]]?.x ?? 10], subs: [] };
 }
 
 /** A small drawing of each part type for the legend: footprint 20 × 60 or its own size. */
