@@ -143,10 +143,15 @@ describe('golden circuit files', () => {
 
 for (const { file, data } of files) {
 	describe(`${file}: ${data.title}`, () => {
-		const circuit = parseCircuit(data.circuit);
+		let parsed: ReturnType<typeof parseCircuit> | undefined;
+		it('its circuit is a valid circuit file', () => {
+			parsed = parseCircuit(data.circuit);
+			expect(parsed).toBeDefined();
+		});
 		for (const c of data.cases) {
 			it(c.name, () => {
 				const where = `${file} / ${c.name}`;
+				const circuit = (parsed ??= parseCircuit(data.circuit));
 				const opts = { state: c.state ?? null, fault: c.fault ?? null, lamp: c.lamp ?? null };
 				let checks = 0;
 				const e = c.expect;
