@@ -364,7 +364,7 @@ function readPart(ctx: Ctx, id: string, line: number, v: Located, supplyVolts: n
 			}
 		}
 	} else if (LOAD_TYPES.has(t)) {
-		const given = ['ohms', 'watts', 'amps'].filter((k) => get(k));
+		const given = v.entries.map((e) => e.key).filter((k) => k === 'ohms' || k === 'watts' || k === 'amps');
 		if (given.length !== 1) {
 			add(
 				ctx,
