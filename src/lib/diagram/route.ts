@@ -77,13 +77,13 @@ export class RouteGrid {
 	 * Shortest orthogonal path from `a` to `b` (or to the bus bar when `b` is null) for a wire of `node`.
 	 * Returns grid points of the path including both ends, or null when no path exists.
 	 */
-	route(node: number, a: RouteEnd, b: RouteEnd | null, window?: { x0: number; y0: number; x1: number; y1: number }): [number, number][] | null {
+	route(node: number, a: RouteEnd, b: RouteEnd | null, bounds?: { x0: number; y0: number; x1: number; y1: number }): [number, number][] | null {
 		const { nx, ny } = this;
 		const me = node + 1;
-		const wx0 = window ? Math.max(0, window.x0) : 0;
-		const wy0 = window ? Math.max(0, window.y0) : 0;
-		const wx1 = window ? Math.min(nx - 1, window.x1) : nx - 1;
-		const wy1 = window ? Math.min(ny - 1, window.y1) : ny - 1;
+		const wx0 = bounds ? Math.max(0, bounds.x0) : 0;
+		const wy0 = bounds ? Math.max(0, bounds.y0) : 0;
+		const wx1 = bounds ? Math.min(nx - 1, bounds.x1) : nx - 1;
+		const wy1 = bounds ? Math.min(ny - 1, bounds.y1) : ny - 1;
 		const n = nx * ny;
 		const dist = new Float64Array(n * 4).fill(Infinity);
 		const prev = new Int32Array(n * 4).fill(-1);
