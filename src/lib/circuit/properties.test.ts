@@ -8,7 +8,7 @@
  *     about 1e-11 A for a 1 mohm fuse at 12 V, which matters only when meters alone draw current).
  *  2. Removing a part that carries no current, with the wires that end on its pins, changes no
  *     remaining node's volts (superposition: a branch with zero current contributes nothing).
- *  3. For every fault in the standard list of every golden circuit with states, the diagnosis of what
+ *  3. For every fault in the standard list of every golden circuit (all have states), the diagnosis of what
  *     that fault produces (every part's status and every point's reading class, in every state)
  *     contains that fault.
  */
@@ -191,6 +191,9 @@ describe('removing a part that carries no current changes no other node', () => 
 });
 
 describe('the diagnosis of what a fault produces contains that fault', () => {
+	it('every golden circuit names at least one state (observations are per state)', () => {
+		for (const g of golden) expect(Object.keys(g.doc.states ?? {}).length, g.file).toBeGreaterThan(0);
+	});
 	for (const g of golden.filter((x) => Object.keys(x.doc.states ?? {}).length > 0)) {
 		it(`${g.file}: every standard fault`, () => {
 			const c = parseCircuit(g.text);
