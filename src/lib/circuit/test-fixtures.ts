@@ -31,3 +31,29 @@ states:
   on:  { S1: closed }
 `;
 
+
+/** A relay-switched lamp of our own, with points on both ends of the lamp feed and at the coil's ground side. */
+export const LAMP_RELAY = `supply: 12.6
+parts:
+  F1: { type: fuse, amps: 10 }
+  K1: { type: relay }
+  S1: { type: switch }
+  L1: { type: lamp, watts: 21 }
+  G1: { type: ground }
+wires:
+  - B+ F1.1
+  - F1.2 S1.1
+  - S1.2 K1.86
+  - K1.85 G1
+  - F1.2 K1.30
+  - K1.87 L1.1
+  - L1.2 G1
+points:
+  A: K1.87
+  B: L1.1
+  C: L1.2
+  E: K1.85
+states:
+  off: {}
+  on: { S1: closed }
+`;
