@@ -26,7 +26,7 @@ export type MatrixEntry =
 			allow: Allowed;
 			form: (ctx: FormContext) => Record<string, string>;
 			outcome: Outcome;
-			/** The action ends the visitor's session, so it gets a session of its own. */
+			/** The action ends the visitor's session (signing out, or signing in anew), so it gets a session of its own. */
 			endsSession?: boolean;
 	  }
 	| { kind: 'endpoint'; route: string; method: string; path?: string; allow: Allowed; outcome?: Outcome };
@@ -40,7 +40,8 @@ export const MATRIX: MatrixEntry[] = [
 		action: 'default',
 		allow: 'anyone',
 		form: () => ({ email: 'reviewer@harrowcreek.example', password: DEMO_PASSWORD, next: '/home' }),
-		outcome: { redirect: '/home' }
+		outcome: { redirect: '/home' },
+		endsSession: true
 	},
 	{ kind: 'page', route: '/signup', allow: 'anyone' },
 	{
@@ -54,7 +55,8 @@ export const MATRIX: MatrixEntry[] = [
 			password: 'a matrix of long words',
 			timeZone: 'UTC'
 		}),
-		outcome: { redirect: '/home' }
+		outcome: { redirect: '/home' },
+		endsSession: true
 	},
 	{ kind: 'page', route: '/signout', allow: 'anyone' },
 	{

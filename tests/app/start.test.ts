@@ -46,6 +46,16 @@ describe('the app started by scripts/start.sh (as npm start does)', () => {
 		expect(cookie).not.toMatch(/; Secure/);
 	});
 
+	it('ends the old session when a browser signs in again (common practice against session fixation, OWASP)', async () => {
+		const email = DEMO_ACCOUNTS[1]!.email;
+		const first = await signIn(email);
+		const again = await request('/signin', { cookie: first, form: { email, password: DEMO_PASSWORD } });
+		expect(again.status).toBe(303);
+		expect(again.cookie).not.toBe(first);
+		expect((await request('/api/me', { cookie: first })).status).toBe(303);
+		expect((await request('/api/me', { cookie: again.cookie })).status).toBe(200);
+	});
+
 	it('seeds idempotently: preparing the database again adds nobody', async () => {
 		const env = {
 			...process.env,

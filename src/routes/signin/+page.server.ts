@@ -5,7 +5,7 @@ import { invalid, parseForm } from '$lib/server/forms';
 import { safeNext } from '$lib/server/auth/guards';
 import { verifyAgainstDummy, verifyPassword } from '$lib/server/auth/password';
 import { checkSignIn, clearAccountFailures, recordSignInFailure, retryMessage } from '$lib/server/auth/rate-limit';
-import { createSession, setSessionCookie } from '$lib/server/auth/session';
+import { createSession, invalidateSession, setSessionCookie } from '$lib/server/auth/session';
 import { findAccountByEmail } from '$lib/server/users/accounts';
 
 export const load: PageServerLoad = ({ url, locals }) => ({
@@ -39,6 +39,8 @@ export const actions: Actions = {
 
 		await clearAccountFailures(email);
 		// Hook for e-mail verification (later): refuse or warn here while account.emailVerifiedAt is null.
+		// A new session for every sign-in; the one this browser held before (if any) ends.
+		if (event.locals.sessionId) await invalidateSession(event.locals.sessionId);
 		const session = await createSession(account.id);
 		setSessionCookie(event, session.id);
 		redirect(303, safeNext(next));

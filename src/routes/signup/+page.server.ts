@@ -3,7 +3,7 @@ import type { Actions, PageServerLoad } from './$types';
 import { signupSchema } from './schema';
 import { invalid, parseForm } from '$lib/server/forms';
 import { PASSWORD_RULE } from '$lib/server/auth/password';
-import { createSession, setSessionCookie } from '$lib/server/auth/session';
+import { createSession, invalidateSession, setSessionCookie } from '$lib/server/auth/session';
 import { createAccount, EmailTakenError } from '$lib/server/users/accounts';
 
 export const load: PageServerLoad = () => ({ passwordRule: PASSWORD_RULE });
@@ -29,6 +29,8 @@ export const actions: Actions = {
 			}
 			throw err;
 		}
+		// A new session for every sign-in; the one this browser held before (if any) ends.
+		if (event.locals.sessionId) await invalidateSession(event.locals.sessionId);
 		const session = await createSession(account.id);
 		setSessionCookie(event, session.id);
 		redirect(303, '/home');
