@@ -748,7 +748,7 @@ function layoutOnce(c: DiagramCircuit, opts: LayoutOptions, gap: number): Drawin
 		const segs = [];
 		for (let i = 1; i < w.points.length; i++) segs.push([w.points[i - 1], w.points[i]] as [Point, Point]);
 		segs.sort((s, t) => segLen(t) - segLen(s));
-		let best: { box: Box; score: number } | null = null;
+		let best = null as { box: Box; score: number } | null;
 		for (const [p, q] of segs) {
 			for (const t of [0.5, 0.3, 0.7, 0.15, 0.85]) {
 				const mx = p[0] + (q[0] - p[0]) * t;
@@ -772,8 +772,9 @@ function layoutOnce(c: DiagramCircuit, opts: LayoutOptions, gap: number): Drawin
 			if (best && best.score < 1) break;
 		}
 		if (best) {
-			w.label = { ...best.box, lines: [text], kind: 'wire', owner: w.id };
-			placedLabels.push(w.label);
+			const label: DrawnLabel = { ...best.box, lines: [text], kind: 'wire', owner: w.id };
+			w.label = label;
+			placedLabels.push(label);
 		}
 	}
 
@@ -791,7 +792,7 @@ function layoutOnce(c: DiagramCircuit, opts: LayoutOptions, gap: number): Drawin
 			if (xy) anchor = [xy.x, xy.y];
 		}
 		if (!anchor) continue;
-		let best: { box: Box; score: number } | null = null;
+		let best = null as { box: Box; score: number } | null;
 		for (const dist of [16, 24, 34, 46, 60]) {
 			for (const [ux, uy] of [
 				[-1, -0.6],
