@@ -54,7 +54,8 @@ export type DrawnWire = {
 	label: DrawnLabel | null;
 };
 
-export type DrawnFlag = { label: string; node: string; target: string; anchor: Point; cx: number; cy: number; r: number; box: DrawnLabel };
+/** A test-point flag: a pill of half-height `r` and half-width `hw` centred on (cx, cy), with a leader to `anchor`. */
+export type DrawnFlag = { label: string; node: string; target: string; anchor: Point; cx: number; cy: number; r: number; hw: number; box: DrawnLabel };
 
 export type LegendEntry = { key: string; text: string; x: number; y: number; shape: SymbolShape | null; kind: 'symbol' | 'dot' | 'flag' | 'bar' };
 
@@ -781,6 +782,7 @@ function layoutOnce(c: DiagramCircuit, opts: LayoutOptions, gap: number): Drawin
 	const flags: DrawnFlag[] = [];
 	const R = 9;
 	for (const [label, target] of Object.entries(c.points)) {
+		const HW = Math.max(R, Math.ceil((label.length * 6.6) / 2) + 4);
 		const key = keyOfEnd(target);
 		let anchor: Point | null = null;
 		if (key === 'B+' && bar) anchor = [bar.x1, bar.y];
@@ -804,9 +806,9 @@ function layoutOnce(c: DiagramCircuit, opts: LayoutOptions, gap: number): Drawin
 				[0, -1],
 				[0, 1]
 			]) {
-				const cx = anchor[0] + ux * dist;
+				const cx = anchor[0] + ux * (dist + HW - R);
 				const cy = anchor[1] + uy * dist;
-				const b = { x: cx - R, y: cy - R, w: 2 * R, h: 2 * R };
+				const b = { x: cx - HW, y: cy - R, w: 2 * HW, h: 2 * R };
 				if (!free(b)) continue;
 				const score = wireHits(b) * 1000 + dist;
 				if (!best || score < best.score) best = { box: b, score };
@@ -816,7 +818,7 @@ function layoutOnce(c: DiagramCircuit, opts: LayoutOptions, gap: number): Drawin
 		if (!best) continue;
 		const box: DrawnLabel = { ...best.box, lines: [label], kind: 'flag', owner: label };
 		placedLabels.push(box);
-		flags.push({ label, node: nodeOfKey(key), target, anchor, cx: best.box.x + R, cy: best.box.y + R, r: R, box });
+		flags.push({ label, node: nodeOfKey(key), target, anchor, cx: best.box.x + HW, cy: best.box.y + R, r: R, hw: HW, box });
 	}
 
 	// --- Legend of the symbols used, below the drawing.

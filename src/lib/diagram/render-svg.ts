@@ -174,10 +174,11 @@ export function renderSvg(d: Drawing, opts: RenderOptions = {}): string {
 }
 
 export function flagMarkup(fl: Drawing['flags'][number]): string {
-	const dx = fl.cx - fl.anchor[0];
-	const dy = fl.cy - fl.anchor[1];
-	const len = Math.hypot(dx, dy) || 1;
-	const ex = fl.cx - (dx / len) * fl.r;
-	const ey = fl.cy - (dy / len) * fl.r;
-	return `<g class="sp-flag" data-point="${escapeXml(fl.label)}"><title>${escapeXml(`test point ${fl.label}, at ${fl.target}`)}</title><line class="sp-flag-lead" x1="${f(fl.anchor[0])}" y1="${f(fl.anchor[1])}" x2="${f(ex)}" y2="${f(ey)}"/><circle class="sp-flag-ring" cx="${f(fl.cx)}" cy="${f(fl.cy)}" r="${fl.r}"/><text class="sp-flag-text" x="${f(fl.cx)}" y="${f(fl.cy + 4)}" text-anchor="middle">${escapeXml(fl.label)}</text></g>`;
+	const dx = fl.anchor[0] - fl.cx;
+	const dy = fl.anchor[1] - fl.cy;
+	// The leader starts where the line to the anchor leaves the pill's bounding box.
+	const t = Math.min(dx ? fl.hw / Math.abs(dx) : Infinity, dy ? fl.r / Math.abs(dy) : Infinity, 1);
+	const ex = fl.cx + dx * t;
+	const ey = fl.cy + dy * t;
+	return `<g class="sp-flag" data-point="${escapeXml(fl.label)}"><title>${escapeXml(`test point ${fl.label}, at ${fl.target}`)}</title><line class="sp-flag-lead" x1="${f(fl.anchor[0])}" y1="${f(fl.anchor[1])}" x2="${f(ex)}" y2="${f(ey)}"/><rect class="sp-flag-ring" x="${f(fl.cx - fl.hw)}" y="${f(fl.cy - fl.r)}" width="${f(2 * fl.hw)}" height="${f(2 * fl.r)}" rx="${fl.r}"/><text class="sp-flag-text" x="${f(fl.cx)}" y="${f(fl.cy + 4)}" text-anchor="middle">${escapeXml(fl.label)}</text></g>`;
 }
