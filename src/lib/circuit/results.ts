@@ -221,20 +221,11 @@ export function loadStatus(amps: number, emf: number, ohms: number): 'on' | 'wea
 	return 'off';
 }
 
-/** An object with every file node name as a key, in order, to copy for each result. */
-const nodeTemplates = new WeakMap<object, Record<string, number>>();
-
 /** Builds the spec's result object (keys in file order) from a settled solve. */
 export function buildResult(s: Settled, fault: string | null, needAmps: boolean): SolveResult {
 	const { net, cfg, work: w } = s;
 	const c = net.circuit;
-	let tpl = nodeTemplates.get(c);
-	if (!tpl) {
-		tpl = {};
-		for (let i = 0; i < c.fileNodeCount; i++) tpl[c.nodeNames[i]] = 0;
-		nodeTemplates.set(c, tpl);
-	}
-	const nodes: Record<string, number> = { ...tpl };
+	const nodes: Record<string, number> = {};
 	for (let i = 0; i < c.fileNodeCount; i++) nodes[c.nodeNames[i]] = roundVolts(w.V[i]);
 	const reach = reachableNodes(s);
 	const points: Record<string, { volts: number; reads: Reads }> = {};
@@ -266,27 +257,25 @@ export function partState(s: Settled, pi: number, cur: Float64Array | null): { s
 	const fs = net.fuseSlot;
 	const ds = net.diodeSlot;
 	const els = net.partEls[pi];
-	const ampsOf = (i: number): number => {
-		if (cur) return Math.abs(cur[i]);
-		return resistiveOn(net, cfg, i, fs, ds) ? Math.abs(elementAmps(net, w, i)) : 0;
-	};
 	let status: string | null = null;
 	let amps = 0;
 	if (FUSE_TYPES.has(p.type)) {
-		const e = els.find((i) => net.code[i] === Code.Fuse);
+		let e: number | undefined;
+		for (const i of els) if (net.code[i] === Code.Fuse) e = i;
 		const open = e === undefined || cfg.fuseOpen[fs[e]] === 1;
 		status = open ? (p.type === 'breaker' ? 'tripped' : 'blown') : 'ok';
-		amps = open ? 0 : ampsOf(e!);
+		amps = open ? 0 : ampsOfEl(s, cur, e!);
 	} else if (p.type === 'relay') {
 		const r = net.relayOfPart[pi];
 		const st = cfg.relay[r];
 		status = st === 2 ? 'chattering' : st === 1 ? 'energized' : 'released';
 		const coil = net.relayCoil[r];
-		amps = coil >= 0 ? ampsOf(coil) : 0;
+		amps = coil >= 0 ? ampsOfEl(s, cur, coil) : 0;
 	} else if (p.type === 'switch') {
 		if (p.positions) {
-			const st = net.state ? c.states.find((x) => x.name === net.state) : undefined;
-			status = st?.switches[p.id] ?? p.positions[0].name;
+			let setting: string | undefined;
+			for (const x of c.states) if (x.name === net.state) setting = x.switches[p.id];
+			status = setting ?? p.positions[0].name;
 			for (const e of els) if (net.code[e] === Code.Ideal) amps = Math.max(amps, cur ? Math.abs(cur[e]) : 0);
 		} else {
 			const e = els[0];
@@ -296,22 +285,29 @@ export function partState(s: Settled, pi: number, cur: Float64Array | null): { s
 		}
 	} else if (LOAD_TYPES.has(p.type)) {
 		const e = els[0];
-		amps = e !== undefined ? ampsOf(e) : 0;
+		amps = e !== undefined ? ampsOfEl(s, cur, e) : 0;
 		status = loadStatus(amps, net.emf, p.ohms!);
 	} else if (p.type === 'diode') {
 		const e = els[0];
 		const on = e !== undefined && cfg.diodeOn[ds[e]] === 1;
 		status = on ? 'conducting' : 'blocking';
-		amps = on ? ampsOf(e) : 0;
+		amps = on ? ampsOfEl(s, cur, e) : 0;
 	} else if (p.type === 'supply') {
 		const e = els[0];
 		amps = e !== undefined && cur ? Math.abs(cur[e]) : 0;
 	} else if (p.type === 'resistor') {
-		amps = els[0] !== undefined ? ampsOf(els[0]) : 0;
+		amps = els[0] !== undefined ? ampsOfEl(s, cur, els[0]) : 0;
 	} else if (p.type === 'connector' || p.type === 'ground') {
-		for (const e of els) amps = Math.max(amps, net.code[e] === Code.Ideal ? (cur ? Math.abs(cur[e]) : 0) : ampsOf(e));
+		for (const e of els) amps = Math.max(amps, net.code[e] === Code.Ideal ? (cur ? Math.abs(cur[e]) : 0) : ampsOfEl(s, cur, e));
 	}
 	return { status, amps: roundAmps(amps) };
+}
+
+/** Current magnitude of element i: from `cur` when given, else by Ohm's law for resistive elements (0 otherwise). */
+function ampsOfEl(s: Settled, cur: Float64Array | null, i: number): number {
+	if (cur) return Math.abs(cur[i]);
+	const { net, cfg, work: w } = s;
+	return resistiveOn(net, cfg, i, net.fuseSlot, net.diodeSlot) ? Math.abs(elementAmps(net, w, i)) : 0;
 }
 
 /** Element-level currents of a settled solve (every conducting element, open ones omitted). */

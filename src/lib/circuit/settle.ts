@@ -20,6 +20,13 @@ export type SettleOptions = { forced?: Map<number, 0 | 1>; noFuseOpens?: boolean
 /** The outcome of settling: the final configuration and solution, or the source of a dead short. */
 export type Settled = { net: Net; cfg: Config; work: Work; dead: boolean; events: SettleEvent[] };
 
+/** The relay states as one number, base 3, relay 0 in the lowest digit. */
+function relayCode(relay: Int8Array): number {
+	let k = 0;
+	for (let r = relay.length - 1; r >= 0; r--) k = k * 3 + relay[r];
+	return k;
+}
+
 /** One set of solve buffers per compiled network, reused by the next settle of that network. */
 const pooled = new WeakMap<Net, Work>();
 
@@ -45,12 +52,7 @@ export function settle(net: Net, opts: SettleOptions = {}, work?: Work): Settled
 	}
 	const events: SettleEvent[] = [];
 	const rec = !!opts.record;
-	const codeOf = () => {
-		let k = 0;
-		for (let r = nr - 1; r >= 0; r--) k = k * 3 + cfg.relay[r];
-		return k;
-	};
-	let history: number[] = [codeOf()];
+	let history: number[] = [relayCode(cfg.relay)];
 	const V = w.V;
 	const ids = net.els;
 	for (let step = 0; step < MAX_SETTLE_STEPS; step++) {
@@ -88,7 +90,7 @@ export function settle(net: Net, opts: SettleOptions = {}, work?: Work): Settled
 			cfg.relay[r] = want;
 			const id = net.circuit.parts[net.relayPart[r]].id;
 			if (rec) events.push({ kind: 'relay', id, to: want ? 'energized' : 'released', coilVolts: mv / 1000 });
-			const code = codeOf();
+			const code = relayCode(cfg.relay);
 			const seen = history.indexOf(code);
 			if (seen >= 0) {
 				const chat: string[] = [];
@@ -106,7 +108,7 @@ export function settle(net: Net, opts: SettleOptions = {}, work?: Work): Settled
 				}
 				if (rec) events.push({ kind: 'chattering', ids: chat });
 			}
-			history.push(codeOf());
+			history.push(relayCode(cfg.relay));
 			changed = true;
 			break;
 		}
@@ -129,7 +131,7 @@ export function settle(net: Net, opts: SettleOptions = {}, work?: Work): Settled
 			if (best >= 0) {
 				cfg.fuseOpen[best] = 1;
 				if (rec) events.push({ kind: 'fuse', id: ids[net.fuses[best]].id, amps: bestAmps, rating: net.fuseRating[best] });
-				history = [codeOf()];
+				history = [relayCode(cfg.relay)];
 				continue;
 			}
 		}
