@@ -1,7 +1,7 @@
 /**
- * LU factorisation with partial pivoting, in place on a row-major Float64Array. It tracks each
- * row's nonzero span (first to last column), so the sparse, nearly banded matrices of wiring
- * networks cost far less than a dense elimination; the arithmetic is that of ordinary LU.
+ * LU factorisation with partial pivoting, in place on a row-major Float64Array. It keeps each row's
+ * list of nonzero columns, so the sparse, nearly tree-shaped matrices of wiring networks cost little
+ * more than their nonzeros; the arithmetic is that of ordinary LU with partial pivoting.
  */
 import { PIVOT_REL_TOL } from './tables';
 
@@ -15,165 +15,223 @@ export class SingularMatrixError extends Error {
 	}
 }
 
-/** Row spans of a factorisation: L of row i lies in columns first[i]..i-1, U in i..last[i]. */
-export type Spans = { first: Int32Array; last: Int32Array };
+/**
+ * Scratch of a factorisation for matrices up to `cap`×`cap`: row spans (row i has no nonzero left of
+ * first[i] or right of last[i]), each row's nonzero columns (`nz`, `cnt`) and a presence mark.
+ */
+export type Spans = {
+	cap: number;
+	first: Int32Array;
+	last: Int32Array;
+	nz: Int32Array;
+	cnt: Int32Array;
+	mark: Uint8Array;
+	/** True when the last factorisation swapped rows (its row lists then no longer drive the solve). */
+	swapped: boolean;
+};
 
-/** Allocates spans for matrices up to n×n. */
+/** Allocates factorisation scratch for matrices up to n×n. */
 export function makeSpans(n: number): Spans {
-	return { first: new Int32Array(n), last: new Int32Array(n) };
+	return {
+		cap: n,
+		first: new Int32Array(n),
+		last: new Int32Array(n),
+		nz: new Int32Array(n * n),
+		cnt: new Int32Array(n),
+		mark: new Uint8Array(n * n),
+		swapped: false
+	};
 }
 
 /**
  * Factors the n×n matrix `a` (row-major, first n*n entries used) into L·U in place with partial
  * pivoting (perm[i] = original row now at i). A pivot whose magnitude is at most `PIVOT_REL_TOL`
- * times the largest magnitude in the matrix counts as zero. With `known`, `spans` already hold each
- * row's first and last nonzero column (as the matrix was built); otherwise they are found by a scan.
+ * times the largest magnitude in the matrix counts as zero. With `known`, `spans.first`/`last`
+ * already bound each row's nonzeros (as the matrix was built); otherwise the rows are scanned.
+ * While no row has been swapped the pattern stays symmetric (as for nodal matrices), so the rows to
+ * eliminate below a pivot are read from the pivot row's list; after a swap every row below is scanned.
  * @throws SingularMatrixError when a column has no usable pivot.
  */
-export function luFactor(a: Float64Array, n: number, perm: Int32Array, spans: Spans = makeSpans(n), known = false): void {
-	const { first, last } = spans;
+export function luFactor(a: Float64Array, n: number, perm: Int32Array, spans?: Spans, known = false): void {
+	const sp = spans && spans.cap >= n ? spans : makeSpans(n);
+	const { first, last, nz, cnt, mark } = sp;
 	let scale = 0;
+	let symmetric = true;
 	for (let i = 0; i < n; i++) {
 		const r = i * n;
-		if (!known) {
-			let f = n;
-			let l = -1;
-			for (let j = 0; j < n; j++)
-				if (a[r + j] !== 0) {
-					if (f === n) f = j;
-					l = j;
-				}
-			first[i] = f;
-			last[i] = l;
-		}
-		for (let j = first[i], e = last[i]; j <= e; j++) {
+		const lo = known ? first[i] : 0;
+		const hi = known ? last[i] : n - 1;
+		let f = n;
+		let l = -1;
+		let c = 0;
+		for (let j = lo; j <= hi; j++) {
 			const v = a[r + j];
+			if (v === 0) continue;
+			if (f === n) f = j;
+			l = j;
+			nz[r + c++] = j;
+			mark[r + j] = 1;
 			const m = v < 0 ? -v : v;
 			if (m > scale) scale = m;
 		}
+		if (!known) {
+			first[i] = f;
+			last[i] = l;
+		}
+		cnt[i] = c;
 		perm[i] = i;
 	}
+	// a pattern that is not symmetric (not a nodal matrix) takes the scanning path throughout
+	for (let i = 0; i < n && symmetric; i++) {
+		const r = i * n;
+		for (let q = 0; q < cnt[i]; q++) if (!mark[nz[r + q] * n + i]) symmetric = false;
+	}
 	const tol = scale * PIVOT_REL_TOL;
-	// rows that have entries left of the diagonal, bucketed by their first column: while no row swap
-	// happens, the rows below k with a nonzero in column k are exactly those bucketed at columns <= k
-	ensureBook(n);
-	const head = bookHead;
-	const next = bookNext;
-	const act = bookAct;
-	head.fill(-1, 0, n);
-	for (let i = n - 1; i >= 0; i--) {
-		const c = first[i];
-		if (c < i) {
-			next[i] = head[c];
-			head[c] = i;
-		}
-	}
-	let na = 0;
-	let swapped = false;
-	for (let k = 0; k < n; k++) {
-		if (!swapped) {
-			let m = 0;
-			for (let q = 0; q < na; q++) if (act[q] > k) act[m++] = act[q];
-			na = m;
-			for (let r = head[k]; r >= 0; r = next[r]) act[na++] = r;
-		}
-		let p = -1;
-		let best = tol;
-		if (swapped) {
-			for (let i = k; i < n; i++) {
-				if (first[i] > k) continue;
-				const v = a[i * n + k];
-				const m = v < 0 ? -v : v;
-				if (m > best) {
-					best = m;
-					p = i;
+	try {
+		for (let k = 0; k < n; k++) {
+			const rk0 = k * n;
+			let p = -1;
+			let best = tol;
+			if (symmetric) {
+				const v = a[rk0 + k];
+				const mk = v < 0 ? -v : v;
+				if (mk > best) {
+					best = mk;
+					p = k;
+				}
+				for (let q = 0; q < cnt[k]; q++) {
+					const i = nz[rk0 + q];
+					if (i <= k) continue;
+					const x = a[i * n + k];
+					const m = x < 0 ? -x : x;
+					if (m > best) {
+						best = m;
+						p = i;
+					}
+				}
+			} else {
+				for (let i = k; i < n; i++) {
+					if (first[i] > k) continue;
+					const x = a[i * n + k];
+					const m = x < 0 ? -x : x;
+					if (m > best) {
+						best = m;
+						p = i;
+					}
 				}
 			}
-		} else {
-			const v = a[k * n + k];
-			const mk = v < 0 ? -v : v;
-			if (first[k] <= k && mk > best) {
-				best = mk;
-				p = k;
+			if (p < 0) throw new SingularMatrixError(k);
+			if (p !== k) {
+				symmetric = false;
+				swapRows(sp, a, n, k, p);
+				let t = perm[k];
+				perm[k] = perm[p];
+				perm[p] = t;
+				t = first[k];
+				first[k] = first[p];
+				first[p] = t;
+				t = last[k];
+				last[k] = last[p];
+				last[p] = t;
 			}
-			for (let q = 0; q < na; q++) {
-				const i = act[q];
-				const x = a[i * n + k];
-				const m = x < 0 ? -x : x;
-				if (m > best) {
-					best = m;
-					p = i;
-				}
-			}
-		}
-		if (p < 0) throw new SingularMatrixError(k);
-		if (p !== k) {
-			swapped = true;
 			const rk = k * n;
-			const rp = p * n;
-			const lo = Math.min(first[k], first[p]);
-			const hi = Math.max(last[k], last[p]);
-			for (let j = lo; j <= hi; j++) {
-				const t = a[rk + j];
-				a[rk + j] = a[rp + j];
-				a[rp + j] = t;
+			const piv = a[rk + k];
+			if (symmetric) {
+				for (let q = 0; q < cnt[k]; q++) {
+					const i = nz[rk + q];
+					if (i > k) eliminate(sp, a, n, i, k, piv);
+				}
+			} else {
+				for (let i = k + 1; i < n; i++) if (first[i] <= k) eliminate(sp, a, n, i, k, piv);
 			}
-			let t = perm[k];
-			perm[k] = perm[p];
-			perm[p] = t;
-			t = first[k];
-			first[k] = first[p];
-			first[p] = t;
-			t = last[k];
-			last[k] = last[p];
-			last[p] = t;
 		}
-		const rk = k * n;
-		const piv = a[rk + k];
-		const lk = last[k];
-		if (swapped) {
-			for (let i = k + 1; i < n; i++) {
-				if (first[i] > k) continue;
-				eliminate(a, n, i, k, rk, piv, lk, last);
-			}
-		} else for (let q = 0; q < na; q++) eliminate(a, n, act[q], k, rk, piv, lk, last);
+	} finally {
+		for (let i = 0; i < n; i++) {
+			const r = i * n;
+			for (let q = 0; q < cnt[i]; q++) mark[r + nz[r + q]] = 0;
+		}
 	}
+	sp.swapped = !symmetric;
 }
 
-function eliminate(a: Float64Array, n: number, i: number, k: number, rk: number, piv: number, lk: number, last: Int32Array): void {
+function swapRows(sp: Spans, a: Float64Array, n: number, k: number, p: number): void {
+	const rk = k * n;
+	const rp = p * n;
+	for (let j = 0; j < n; j++) {
+		const t = a[rk + j];
+		a[rk + j] = a[rp + j];
+		a[rp + j] = t;
+		const m = sp.mark[rk + j];
+		sp.mark[rk + j] = sp.mark[rp + j];
+		sp.mark[rp + j] = m;
+	}
+	const cmax = Math.max(sp.cnt[k], sp.cnt[p]);
+	for (let q = 0; q < cmax; q++) {
+		const t = sp.nz[rk + q];
+		sp.nz[rk + q] = sp.nz[rp + q];
+		sp.nz[rp + q] = t;
+	}
+	const t = sp.cnt[k];
+	sp.cnt[k] = sp.cnt[p];
+	sp.cnt[p] = t;
+}
+
+function eliminate(sp: Spans, a: Float64Array, n: number, i: number, k: number, piv: number): void {
 	const ri = i * n;
 	const m = a[ri + k];
 	if (m === 0) return;
 	const f = m / piv;
 	a[ri + k] = f;
-	for (let j = k + 1; j <= lk; j++) a[ri + j] -= f * a[rk + j];
-	if (lk > last[i]) last[i] = lk;
+	const rk = k * n;
+	const nz = sp.nz;
+	const mark = sp.mark;
+	const ck = sp.cnt[k];
+	for (let q = 0; q < ck; q++) {
+		const j = nz[rk + q];
+		if (j <= k) continue;
+		if (!mark[ri + j]) {
+			mark[ri + j] = 1;
+			nz[ri + sp.cnt[i]++] = j;
+			if (j > sp.last[i]) sp.last[i] = j;
+		}
+		a[ri + j] -= f * a[rk + j];
+	}
 }
 
-let bookHead = new Int32Array(0);
-let bookNext = new Int32Array(0);
-let bookAct = new Int32Array(0);
-function ensureBook(n: number): void {
-	if (bookHead.length >= n) return;
-	bookHead = new Int32Array(n);
-	bookNext = new Int32Array(n);
-	bookAct = new Int32Array(n);
-}
-
-/** Solves L·U·x = P·b for a matrix factored by `luFactor` with the same spans; writes x (may not alias b). */
+/**
+ * Solves L·U·x = P·b for a matrix factored by `luFactor`; writes x (may not alias b). Pass the same
+ * `spans` to use the row lists (when no row was swapped) or spans; without it the solve is dense.
+ */
 export function luSolve(a: Float64Array, n: number, perm: Int32Array, b: Float64Array, x: Float64Array, spans?: Spans): void {
+	const lists = spans !== undefined && !spans.swapped;
 	for (let i = 0; i < n; i++) {
 		let s = b[perm[i]];
 		const ri = i * n;
-		const f = spans ? spans.first[i] : 0;
-		for (let j = f; j < i; j++) s -= a[ri + j] * x[j];
+		if (lists) {
+			const c = spans!.cnt[i];
+			for (let q = 0; q < c; q++) {
+				const j = spans!.nz[ri + q];
+				if (j < i) s -= a[ri + j] * x[j];
+			}
+		} else {
+			const f = spans ? spans.first[i] : 0;
+			for (let j = f; j < i; j++) s -= a[ri + j] * x[j];
+		}
 		x[i] = s;
 	}
 	for (let i = n - 1; i >= 0; i--) {
 		let s = x[i];
 		const ri = i * n;
-		const l = spans ? spans.last[i] : n - 1;
-		for (let j = i + 1; j <= l; j++) s -= a[ri + j] * x[j];
+		if (lists) {
+			const c = spans!.cnt[i];
+			for (let q = 0; q < c; q++) {
+				const j = spans!.nz[ri + q];
+				if (j > i) s -= a[ri + j] * x[j];
+			}
+		} else {
+			const l = spans ? spans.last[i] : n - 1;
+			for (let j = i + 1; j <= l; j++) s -= a[ri + j] * x[j];
+		}
 		x[i] = s / a[ri + i];
 	}
 }
