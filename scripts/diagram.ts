@@ -62,9 +62,11 @@ function main(): number {
 	const fault = args.fault ? parseFault(args.fault) : null;
 	const overlays: OverlaySet[] = [];
 	let energized = new Set<string>();
+	let blown = new Set<string>();
 	const solved = solveCircuit(circuit as Circuit, { state: args.state, fault });
 	if (!('error' in solved)) {
 		energized = new Set(Object.entries(solved.parts).filter(([, p]) => p.status === 'energized').map(([id]) => id));
+		blown = new Set(Object.entries(solved.parts).filter(([, p]) => p.status === 'blown' || p.status === 'tripped').map(([id]) => id));
 	}
 	for (const h of args.highlights) {
 		const m = /^path:(.+)$/.exec(h);
@@ -73,7 +75,7 @@ function main(): number {
 		overlays.push({ name: `path through ${m[1]}`, elements });
 	}
 	if (fault) overlays.push({ name: `fault ${formatFault(fault)}`, elements: faultElements(fault), style: 3 });
-	const drawing = layoutCircuit(diagram, { state: args.state, energized, showWireIds: args.wireIds });
+	const drawing = layoutCircuit(diagram, { state: args.state, energized, blown, showWireIds: args.wireIds });
 	process.stdout.write(renderSvg(drawing, { overlays }));
 	return 0;
 }

@@ -84,6 +84,8 @@ export type LayoutOptions = {
 	energized?: ReadonlySet<string>;
 	/** Print each wire's id beside it. */
 	showWireIds?: boolean;
+	/** Fuses and links drawn blown, breakers tripped (from a solve). */
+	blown?: ReadonlySet<string>;
 };
 
 export class DiagramLayoutError extends Error {
@@ -483,7 +485,7 @@ function layoutOnce(c: DiagramCircuit, opts: LayoutOptions, gap: number): Drawin
 		if (!pl) continue;
 		const idx = pl.lanes.map((l) => colIndex.get(l)!);
 		const pitch = idx.length > 1 ? axis[idx[1]] - axis[idx[0]] : 40;
-		const shape = buildSymbol(p, { top: pl.top, pitch, setting: settings.get(p.id), energized: opts.energized?.has(p.id) });
+		const shape = buildSymbol(p, { top: pl.top, pitch, setting: settings.get(p.id), energized: opts.energized?.has(p.id), blown: opts.blown?.has(p.id) });
 		const x = axis[idx[0]] - shape.laneX[0];
 		const y = rowY.get(pl.row)! + (ROW_H - shape.h) / 2;
 		const dp = makePart(p, shape, x, y, labels.get(p.id)!, settings.get(p.id) ?? null, labelSize, sizingLines.get(p.id)!);

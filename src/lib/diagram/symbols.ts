@@ -32,6 +32,8 @@ export type SymbolOptions = {
 	setting?: string | null;
 	/** Relay contact drawn pulled in (30 on 87) rather than at rest (30 on 87a). */
 	energized?: boolean;
+	/** A fuse or link drawn blown, a breaker drawn tripped. */
+	blown?: boolean;
 };
 
 const f = (n: number) => String(Math.round(n * 100) / 100);
@@ -50,12 +52,15 @@ export function escapeXml(s: string): string {
 }
 
 /** Two-pin symbols: pin on top at (10, 0), bottom at (10, 60); the body draws between y 10 and 50. */
-function twoPinBody(type: PartType, part: DiagramPart, topIsSecond: boolean, setting: string | null): string {
+function twoPinBody(type: PartType, part: DiagramPart, topIsSecond: boolean, setting: string | null, blown = false): string {
 	const leads = line(10, 0, 10, 12) + line(10, 48, 10, 60);
+	// A blown element: the conductor broken in the middle, with a cross over the gap.
+	const broken = line(10, 0, 10, 24) + line(10, 36, 10, 60) + line(6, 26, 14, 34, 'sp-body sp-thin') + line(14, 26, 6, 34, 'sp-body sp-thin');
 	switch (type) {
 		case 'fuse':
-			return line(10, 0, 10, 60) + rect(5, 14, 10, 32);
+			return blown ? broken + rect(5, 14, 10, 32) : line(10, 0, 10, 60) + rect(5, 14, 10, 32);
 		case 'fusible-link':
+			if (blown) return broken + rect(5, 14, 10, 32, 'sp-body sp-soft');
 			return (
 				line(10, 0, 10, 14) +
 				line(10, 46, 10, 60) +
@@ -68,7 +73,7 @@ function twoPinBody(type: PartType, part: DiagramPart, topIsSecond: boolean, set
 				line(10, 44, 10, 60) +
 				circle(10, 16, 2, 'sp-fill') +
 				circle(10, 44, 2, 'sp-fill') +
-				path('M10 16 C 22 22, 22 38, 10 44') +
+				(blown ? path('M10 16 C 24 20, 26 30, 22 36') : path('M10 16 C 22 22, 22 38, 10 44')) +
 				line(14, 30, 20, 30) +
 				line(20, 27, 20, 33)
 			);
@@ -189,7 +194,7 @@ export function buildSymbol(part: DiagramPart, opts: SymbolOptions): SymbolShape
 				w: 20,
 				h: 60,
 				pins: { [top]: { x: 10, y: 0, exit: 'up' }, [bottom]: { x: 10, y: 60, exit: 'down' } },
-				body: twoPinBody(part.type, part, topIsSecond, opts.setting ?? null),
+				body: twoPinBody(part.type, part, topIsSecond, opts.setting ?? null, Boolean(opts.blown)),
 				laneX: [10],
 				subs: []
 			};
