@@ -91,4 +91,15 @@ describe('symbols', () => {
 		expect(kTop.pins.k.y).toBe(0);
 		expect(aTop.body).not.toBe(kTop.body);
 	});
+
+	it('a blown fuse or link is drawn with its element broken; a tripped breaker with its contact open', () => {
+		for (const type of ['fuse', 'fusible-link', 'breaker'] as const) {
+			const part: DiagramPart = { id: 'F1', type, amps: 10 };
+			const ok = buildSymbol(part, { top: new Set(['1']), pitch: 40 });
+			const blown = buildSymbol(part, { top: new Set(['1']), pitch: 40, blown: true });
+			expect(blown.body, type).not.toBe(ok.body);
+			// No conductor runs through from one pin to the other.
+			expect(blown.body).not.toContain('x1="10" y1="0" x2="10" y2="60"');
+		}
+	});
 });
