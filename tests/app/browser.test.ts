@@ -76,6 +76,14 @@ describe('in the browser (Chromium)', () => {
 		await page.screenshot({ path: `${SHOTS}/menu-phone.png` });
 		await page.setViewportSize(DESKTOP);
 
+		await openPage(page, `${APP_URL}/profile`);
+		expect(await page.getByLabel('Time zone').inputValue()).toBe('America/Denver');
+		await page.getByLabel('Time zone').selectOption('Europe/Berlin');
+		await page.getByRole('button', { name: 'Save' }).click();
+		await expect.poll(() => page.getByRole('status').textContent()).toContain('Your profile is saved.');
+		expect(await page.getByLabel('Time zone').inputValue()).toBe('Europe/Berlin');
+		await shoot(page, 'profile');
+
 		const refused = await openPage(page, `${APP_URL}/admin/users`);
 		expect(refused?.status()).toBe(403);
 		expect(await page.getByRole('heading', { level: 1 }).textContent()).toBe('Not for your account');
