@@ -46,19 +46,31 @@ export function makeSpans(n: number): Spans {
 /**
  * Factors the n×n matrix `a` (row-major, first n*n entries used) into L·U in place with partial
  * pivoting (perm[i] = original row now at i). A pivot whose magnitude is at most `PIVOT_REL_TOL`
- * times the largest magnitude in the matrix counts as zero. With `known`, `spans.first`/`last`
- * already bound each row's nonzeros (as the matrix was built); otherwise the rows are scanned.
+ * times the largest magnitude in the matrix counts as zero. With `known` true, `spans.first`/`last`
+ * already bound each row's nonzeros; with `'lists'`, `spans` also holds each row's nonzero columns
+ * (`nz`, `cnt`; zeros allowed); otherwise the rows are scanned.
  * While no row has been swapped the pattern stays symmetric (as for nodal matrices), so the rows to
  * eliminate below a pivot are read from the pivot row's list; after a swap every row below is scanned.
  * @throws SingularMatrixError when a column has no usable pivot.
  */
-export function luFactor(a: Float64Array, n: number, perm: Int32Array, spans?: Spans, known = false): void {
+export function luFactor(a: Float64Array, n: number, perm: Int32Array, spans?: Spans, known: boolean | 'lists' = false): void {
 	const sp = spans && spans.cap >= n ? spans : makeSpans(n);
 	const { first, last, nz, cnt, mark } = sp;
 	let scale = 0;
 	let symmetric = true;
 	for (let i = 0; i < n; i++) {
 		const r = i * n;
+		perm[i] = i;
+		if (known === 'lists') {
+			for (let q = 0; q < cnt[i]; q++) {
+				const j = nz[r + q];
+				mark[r + j] = 1;
+				const v = a[r + j];
+				const m = v < 0 ? -v : v;
+				if (m > scale) scale = m;
+			}
+			continue;
+		}
 		const lo = known ? first[i] : 0;
 		const hi = known ? last[i] : n - 1;
 		let f = n;
@@ -79,7 +91,6 @@ export function luFactor(a: Float64Array, n: number, perm: Int32Array, spans?: S
 			last[i] = l;
 		}
 		cnt[i] = c;
-		perm[i] = i;
 	}
 	// a pattern that is not symmetric (not a nodal matrix) takes the scanning path throughout
 	for (let i = 0; i < n && symmetric; i++) {
@@ -87,7 +98,22 @@ export function luFactor(a: Float64Array, n: number, perm: Int32Array, spans?: S
 		for (let q = 0; q < cnt[i]; q++) if (!mark[nz[r + q] * n + i]) symmetric = false;
 	}
 	const tol = scale * PIVOT_REL_TOL;
-	try {
+	const failed = factorColumns(sp, a, n, perm, tol, symmetric);
+	for (let i = 0; i < n; i++) {
+		const r = i * n;
+		for (let q = 0; q < cnt[i]; q++) mark[r + nz[r + q]] = 0;
+	}
+	if (failed >= 0) throw new SingularMatrixError(failed);
+}
+
+/** Eliminates column by column; returns the column without a usable pivot, or -1. */
+function factorColumns(sp: Spans, a: Float64Array, n: number, perm: Int32Array, tol: number, sym: boolean): number {
+	const first = sp.first;
+	const last = sp.last;
+	const nz = sp.nz;
+	const cnt = sp.cnt;
+	let symmetric = sym;
+	{
 		for (let k = 0; k < n; k++) {
 			const rk0 = k * n;
 			let p = -1;
@@ -120,7 +146,10 @@ export function luFactor(a: Float64Array, n: number, perm: Int32Array, spans?: S
 					}
 				}
 			}
-			if (p < 0) throw new SingularMatrixError(k);
+			if (p < 0) {
+				sp.swapped = true;
+				return k;
+			}
 			if (p !== k) {
 				symmetric = false;
 				swapRows(sp, a, n, k, p);
@@ -145,13 +174,9 @@ export function luFactor(a: Float64Array, n: number, perm: Int32Array, spans?: S
 				for (let i = k + 1; i < n; i++) if (first[i] <= k) eliminate(sp, a, n, i, k, piv);
 			}
 		}
-	} finally {
-		for (let i = 0; i < n; i++) {
-			const r = i * n;
-			for (let q = 0; q < cnt[i]; q++) mark[r + nz[r + q]] = 0;
-		}
 	}
 	sp.swapped = !symmetric;
+	return -1;
 }
 
 function swapRows(sp: Spans, a: Float64Array, n: number, k: number, p: number): void {

@@ -4,6 +4,10 @@
  * voltage sources alone have known volts and leave the matrix; a conducting diode is stamped as its
  * Norton equivalent (conductance 1/ohms and a drop × conductance current). The unknowns are the other
  * merged nodes' volts and the currents of sources not tied to GND (GND is the reference).
+ *
+ * Everything that depends only on the relays' states (the merge, dead shorts, the numbering of the
+ * unknowns, the matrix of the fixed elements and its nonzero pattern) is built once per relay
+ * configuration of a compiled network and reused; a solve then adds the fuses and diodes in place.
  */
 import { luFactor, luSolve, makeSpans, type Spans } from './lu';
 import { Code, type Net } from './netlist';
@@ -13,7 +17,27 @@ import { findRoot, unite } from './union-find';
 /** The settling configuration: fuses opened, relay states (0 released, 1 energized, 2 chattering), diodes conducting. */
 export type Config = { fuseOpen: Uint8Array; relay: Int8Array; diodeOn: Uint8Array };
 
-/** Solver buffers and the last solution. Internal to the engine. */
+/** What one relay configuration fixes. Never changed once built. */
+type Structure = {
+	/** Element index of the source that closes a dead short, or -1. */
+	dead: number;
+	parent: Int32Array;
+	root: Int32Array;
+	gOf: Int32Array;
+	fixedV: Float64Array;
+	srcOn: Uint8Array;
+	rowOfSrc: Int32Array;
+	nv: number;
+	n: number;
+	baseA: Float64Array;
+	baseRhs: Float64Array;
+	nz: Int32Array;
+	cnt: Int32Array;
+	first: Int32Array;
+	last: Int32Array;
+};
+
+/** Solver state of the last solve. Internal to the engine; the arrays of a structure are shared, read-only. */
 export type Work = {
 	parent: Int32Array;
 	root: Int32Array;
@@ -27,8 +51,6 @@ export type Work = {
 	V: Float64Array;
 	/** 1 for a battery or supply source in place (not redundant). */
 	srcOn: Uint8Array;
-	spar: Int32Array;
-	spot: Float64Array;
 	/** Element index of the source that closed a dead short, or -1. */
 	deadSource: number;
 };
@@ -39,49 +61,18 @@ let rhs = new Float64Array(0);
 let xs = new Float64Array(0);
 let perm = new Int32Array(0);
 let spans: Spans = makeSpans(0);
-let rowOfSrc = new Int32Array(0);
 
-function ensureScratch(n: number, ne: number): void {
-	if (A.length < n * n) A = new Float64Array(n * n);
-	if (rhs.length < n) {
-		rhs = new Float64Array(n);
-		xs = new Float64Array(n);
-		perm = new Int32Array(n);
-		spans = makeSpans(n);
-	}
-	if (rowOfSrc.length < ne) rowOfSrc = new Int32Array(ne);
+function ensureScratch(n: number): void {
+	if (spans.cap >= n) return;
+	const cap = Math.max(n, 2 * spans.cap);
+	A = new Float64Array(cap * cap);
+	rhs = new Float64Array(cap);
+	xs = new Float64Array(cap);
+	perm = new Int32Array(cap);
+	spans = makeSpans(cap);
 }
 
-function widen(row: number, col: number): void {
-	if (col < spans.first[row]) spans.first[row] = col;
-	if (col > spans.last[row]) spans.last[row] = col;
-}
-
-/** Stamps conductance g (S) between nodes a and b, and a current j (A) driven from b to a inside the element (Norton source). */
-function stamp(w: Work, n: number, a: number, b: number, g: number, j: number): void {
-	const ra = w.root[a];
-	const rb = w.root[b];
-	const ia = w.gOf[ra];
-	const ib = w.gOf[rb];
-	if (ia >= 0) {
-		A[ia * n + ia] += g;
-		if (ib >= 0) {
-			A[ia * n + ib] -= g;
-			widen(ia, ib);
-		} else rhs[ia] += g * w.fixedV[rb];
-		rhs[ia] += j;
-	}
-	if (ib >= 0) {
-		A[ib * n + ib] += g;
-		if (ia >= 0) {
-			A[ib * n + ia] -= g;
-			widen(ib, ia);
-		} else rhs[ib] += g * w.fixedV[ra];
-		rhs[ib] -= j;
-	}
-}
-
-/** Allocates the per-solve buffers for a compiled network. */
+/** Allocates the per-solve state for a compiled network. */
 export function makeWork(net: Net): Work {
 	const nn = net.nNodes;
 	return {
@@ -93,8 +84,6 @@ export function makeWork(net: Net): Work {
 		n: 0,
 		V: new Float64Array(nn),
 		srcOn: new Uint8Array(net.els.length),
-		spar: new Int32Array(nn),
-		spot: new Float64Array(nn),
 		deadSource: -1
 	};
 }
@@ -106,17 +95,222 @@ export function contactClosed(net: Net, cfg: Config, r: number, nc: boolean): bo
 	return nc ? s === 0 : s === 1;
 }
 
-function sfind(w: Work, x: number): number {
-	while (w.spar[x] !== x) x = w.spar[x];
+const structures = new WeakMap<Net, Map<number, Structure>>();
+
+function relayKey(relay: Int8Array): number {
+	let k = 0;
+	for (let r = relay.length - 1; r >= 0; r--) k = k * 3 + relay[r];
+	return k;
+}
+
+function sfind(spar: Int32Array, x: number): number {
+	while (spar[x] !== x) x = spar[x];
 	return x;
 }
-function spotOf(w: Work, x: number): number {
+function spotOf(spar: Int32Array, spot: Float64Array, x: number): number {
 	let p = 0;
-	while (w.spar[x] !== x) {
-		p += w.spot[x];
-		x = w.spar[x];
+	while (spar[x] !== x) {
+		p += spot[x];
+		x = spar[x];
 	}
 	return p;
+}
+
+/** True for elements stamped as a conductance in some configuration (resistors, coils, fuses, diodes). */
+function conductive(c: number): boolean {
+	return c === Code.Resistor || c === Code.Coil || c === Code.Fuse || c === Code.Diode;
+}
+
+function buildStructure(net: Net, cfg: Config): Structure {
+	const nn = net.nNodes;
+	const code = net.code;
+	const ea = net.ea;
+	const eb = net.eb;
+	const ne = code.length;
+	const parent = net.baseParent.slice();
+	const nr = net.relayPart.length;
+	for (let r = 0; r < nr; r++) {
+		const no = net.relayNo[r];
+		const nc = net.relayNc[r];
+		if (no >= 0 && contactClosed(net, cfg, r, false)) unite(parent, ea[no], eb[no]);
+		if (nc >= 0 && contactClosed(net, cfg, r, true)) unite(parent, ea[nc], eb[nc]);
+	}
+	const root = new Int32Array(nn);
+	const gOf = new Int32Array(nn);
+	const spar = new Int32Array(nn);
+	const spot = new Float64Array(nn);
+	for (let i = 0; i < nn; i++) {
+		root[i] = findRoot(parent, i);
+		gOf[i] = net.dormant[i] ? -2 : -3;
+		spar[i] = i;
+	}
+	for (let d = 0; d < net.diodes.length; d++) gOf[net.emid[net.diodes[d]]] = -2;
+	const fixedV = new Float64Array(nn);
+	const srcOn = new Uint8Array(ne);
+	const rowOfSrc = new Int32Array(ne).fill(-1);
+	const empty = new Float64Array(0);
+	const none = new Int32Array(0);
+	const s0: Structure = { dead: -1, parent, root, gOf, fixedV, srcOn, rowOfSrc, nv: 0, n: 0, baseA: empty, baseRhs: empty, nz: none, cnt: none, first: none, last: none };
+	// sources: weighted union-find over merged nodes; a loop of sources and 0 Ω elements is a dead short
+	const srcs = net.sources;
+	for (let s = 0; s < srcs.length; s++) {
+		const e = srcs[s];
+		const rp = root[ea[e]];
+		const rm = root[eb[e]];
+		const v = net.ev[e];
+		const a = sfind(spar, rp);
+		const b = sfind(spar, rm);
+		const pa = spotOf(spar, spot, rp);
+		const pb = spotOf(spar, spot, rm);
+		if (a === b) {
+			if (Math.abs(pa - pb - v) > 1e-9) return { ...s0, dead: e };
+			continue;
+		}
+		spar[a] = b;
+		spot[a] = v + pb - pa;
+		srcOn[e] = 1;
+	}
+	const gTree = sfind(spar, root[1]);
+	const gPot = spotOf(spar, spot, root[1]);
+	// unknown merged nodes, numbered leaves first so that elimination makes little fill-in
+	const tmp = new Int32Array(nn).fill(-1);
+	const groups: number[] = [];
+	for (let i = 0; i < nn; i++) {
+		if (gOf[i] === -2 || root[i] !== i) continue;
+		if (sfind(spar, i) === gTree) {
+			gOf[i] = -1;
+			fixedV[i] = spotOf(spar, spot, i) - gPot;
+		} else {
+			tmp[i] = groups.length;
+			groups.push(i);
+		}
+	}
+	const nv = groups.length;
+	const adj: number[][] = groups.map(() => []);
+	for (let i = 0; i < ne; i++) {
+		if (!conductive(code[i])) continue;
+		const ta = tmp[root[ea[i]]];
+		const tb = tmp[root[eb[i]]];
+		if (ta >= 0 && tb >= 0 && ta !== tb) {
+			adj[ta].push(tb);
+			adj[tb].push(ta);
+		}
+	}
+	const deg = Int32Array.from(adj, (l) => l.length);
+	const placed = new Uint8Array(nv);
+	const stack: number[] = [];
+	for (let t = nv - 1; t >= 0; t--) if (deg[t] <= 1) stack.push(t);
+	let next = 0;
+	while (next < nv) {
+		let t = -1;
+		while (stack.length) {
+			const c = stack.pop()!;
+			if (!placed[c]) {
+				t = c;
+				break;
+			}
+		}
+		if (t < 0) {
+			// no leaf left: the unplaced node of least degree
+			let best = Infinity;
+			for (let c = 0; c < nv; c++)
+				if (!placed[c] && deg[c] < best) {
+					best = deg[c];
+					t = c;
+				}
+		}
+		placed[t] = 1;
+		gOf[groups[t]] = next++;
+		for (const u of adj[t])
+			if (!placed[u]) {
+				deg[u]--;
+				if (deg[u] <= 1) stack.push(u);
+			}
+	}
+	let ns = 0;
+	for (let s = 0; s < srcs.length; s++) {
+		const e = srcs[s];
+		if (srcOn[e] && gOf[root[ea[e]]] >= 0) rowOfSrc[e] = nv + ns++;
+	}
+	const n = nv + ns;
+	const baseA = new Float64Array(n * n);
+	const baseRhs = new Float64Array(n);
+	const nz = new Int32Array(n * n);
+	const cnt = new Int32Array(n);
+	const first = new Int32Array(n);
+	const last = new Int32Array(n);
+	const mark = new Uint8Array(n * n);
+	const touch = (r: number, c: number) => {
+		if (mark[r * n + c]) return;
+		mark[r * n + c] = 1;
+		nz[r * n + cnt[r]++] = c;
+		if (c < first[r]) first[r] = c;
+		if (c > last[r]) last[r] = c;
+	};
+	for (let k = 0; k < n; k++) {
+		first[k] = last[k] = k;
+		touch(k, k);
+	}
+	const st: Structure = { dead: -1, parent, root, gOf, fixedV, srcOn, rowOfSrc, nv, n, baseA, baseRhs, nz, cnt, first, last };
+	for (let i = 0; i < ne; i++) {
+		const c = code[i];
+		if (conductive(c)) {
+			const ia = gOf[root[ea[i]]];
+			const ib = gOf[root[eb[i]]];
+			if (ia >= 0 && ib >= 0 && ia !== ib) {
+				touch(ia, ib);
+				touch(ib, ia);
+			}
+			if (c === Code.Resistor || c === Code.Coil) stampInto(st, baseA, baseRhs, n, ea[i], eb[i], net.g[i], 0);
+		} else if (c === Code.Source && rowOfSrc[i] >= 0) {
+			const k = rowOfSrc[i];
+			const ip = gOf[root[ea[i]]];
+			const im = gOf[root[eb[i]]];
+			baseA[ip * n + k] += 1;
+			baseA[k * n + ip] += 1;
+			touch(ip, k);
+			touch(k, ip);
+			if (im >= 0) {
+				baseA[im * n + k] -= 1;
+				baseA[k * n + im] -= 1;
+				touch(im, k);
+				touch(k, im);
+			}
+			baseRhs[k] = net.ev[i];
+		}
+	}
+	// one 10 MΩ meter per merged node with unknown volts (not on diode or battery internals)
+	const gm = 1 / METER_OHMS;
+	const metered = new Uint8Array(nv);
+	for (let i = 0; i < nn; i++) {
+		if (!net.metered[i]) continue;
+		const k = gOf[root[i]];
+		if (k >= 0 && !metered[k]) {
+			metered[k] = 1;
+			baseA[k * n + k] += gm;
+		}
+	}
+	return st;
+}
+
+/** Stamps conductance g (S) between nodes a and b, and a current j (A) driven from b to a inside the element (Norton source). */
+function stampInto(st: Structure, M: Float64Array, b: Float64Array, n: number, na: number, nb: number, g: number, j: number): void {
+	const ra = st.root[na];
+	const rb = st.root[nb];
+	const ia = st.gOf[ra];
+	const ib = st.gOf[rb];
+	if (ia >= 0) {
+		M[ia * n + ia] += g;
+		if (ib >= 0) M[ia * n + ib] -= g;
+		else b[ia] += g * st.fixedV[rb];
+		b[ia] += j;
+	}
+	if (ib >= 0) {
+		M[ib * n + ib] += g;
+		if (ia >= 0) M[ib * n + ia] -= g;
+		else b[ib] += g * st.fixedV[ra];
+		b[ib] -= j;
+	}
 }
 
 /**
@@ -125,140 +319,57 @@ function spotOf(w: Work, x: number): number {
  * @throws SingularMatrixError only for a network the model cannot produce (every node has a meter).
  */
 export function solveLinear(net: Net, cfg: Config, w: Work): boolean {
-	const nn = net.nNodes;
-	const parent = w.parent;
-	const root = w.root;
-	const gOf = w.gOf;
-	const code = net.code;
+	let byKey = structures.get(net);
+	if (!byKey) structures.set(net, (byKey = new Map()));
+	const key = relayKey(cfg.relay);
+	let st = byKey.get(key);
+	if (!st) byKey.set(key, (st = buildStructure(net, cfg)));
+	w.parent = st.parent;
+	w.root = st.root;
+	w.gOf = st.gOf;
+	w.fixedV = st.fixedV;
+	w.srcOn = st.srcOn;
+	w.deadSource = st.dead;
+	if (st.dead >= 0) return false;
+	const n = st.n;
+	w.nv = st.nv;
+	w.n = n;
+	ensureScratch(n);
+	A.set(st.baseA);
+	rhs.set(st.baseRhs);
+	spans.nz.set(st.nz);
+	spans.cnt.set(st.cnt);
+	spans.first.set(st.first);
+	spans.last.set(st.last);
 	const ea = net.ea;
 	const eb = net.eb;
-	const ne = code.length;
-	parent.set(net.baseParent);
-	const nr = net.relayPart.length;
-	for (let r = 0; r < nr; r++) {
-		const no = net.relayNo[r];
-		const nc = net.relayNc[r];
-		if (no >= 0 && contactClosed(net, cfg, r, false)) unite(parent, ea[no], eb[no]);
-		if (nc >= 0 && contactClosed(net, cfg, r, true)) unite(parent, ea[nc], eb[nc]);
-	}
-	for (let i = 0; i < nn; i++) {
-		root[i] = findRoot(parent, i);
-		gOf[i] = net.dormant[i] ? -2 : -3;
-		w.spar[i] = i;
-		w.spot[i] = 0;
-	}
-	const nd = net.diodes.length;
-	for (let d = 0; d < nd; d++) gOf[net.emid[net.diodes[d]]] = -2;
-	// sources: weighted union-find over merged nodes; a loop of sources and 0 Ω elements is a dead short
-	w.deadSource = -1;
-	const srcs = net.sources;
-	for (let s = 0; s < srcs.length; s++) {
-		const e = srcs[s];
-		const rp = root[ea[e]];
-		const rm = root[eb[e]];
-		const v = net.ev[e];
-		const a = sfind(w, rp);
-		const b = sfind(w, rm);
-		const pa = spotOf(w, rp);
-		const pb = spotOf(w, rm);
-		w.srcOn[e] = 0;
-		if (a === b) {
-			if (Math.abs(pa - pb - v) > 1e-9) {
-				w.deadSource = e;
-				return false;
-			}
-			continue;
-		}
-		w.spar[a] = b;
-		w.spot[a] = v + pb - pa;
-		w.srcOn[e] = 1;
-	}
-	const gndRoot = root[1];
-	const gTree = sfind(w, gndRoot);
-	const gPot = spotOf(w, gndRoot);
-	let nv = 0;
-	const order = net.order;
-	for (let q = 0; q < nn; q++) {
-		const i = order[q];
-		if (gOf[i] === -2) continue;
-		const r = root[i];
-		if (gOf[r] !== -3) continue;
-		if (sfind(w, r) === gTree) {
-			gOf[r] = -1;
-			w.fixedV[r] = spotOf(w, r) - gPot;
-		} else gOf[r] = nv++;
-	}
-	ensureScratch(nn + srcs.length, ne);
-	let ns = 0;
-	for (let s = 0; s < srcs.length; s++) {
-		const e = srcs[s];
-		rowOfSrc[e] = w.srcOn[e] && gOf[root[ea[e]]] >= 0 ? nv + ns++ : -1;
-	}
-	const n = nv + ns;
-	w.nv = nv;
-	w.n = n;
-	A.fill(0, 0, n * n);
-	rhs.fill(0, 0, n);
-	const first = spans.first;
-	const last = spans.last;
-	for (let k = 0; k < n; k++) first[k] = last[k] = k;
 	const g = net.g;
-	let f = 0;
-	let d = 0;
-	for (let i = 0; i < ne; i++) {
-		const c = code[i];
-		if (c === Code.Resistor || c === Code.Coil) stamp(w, n, ea[i], eb[i], g[i], 0);
-		else if (c === Code.Fuse) {
-			if (!cfg.fuseOpen[f]) stamp(w, n, ea[i], eb[i], g[i], 0);
-			f++;
-		} else if (c === Code.Diode) {
-			if (cfg.diodeOn[d]) stamp(w, n, ea[i], eb[i], g[i], g[i] * net.ev[i]);
-			d++;
-		} else if (c === Code.Source && rowOfSrc[i] >= 0) {
-			const k = rowOfSrc[i];
-			const ip = gOf[root[ea[i]]];
-			const im = gOf[root[eb[i]]];
-			A[ip * n + k] += 1;
-			A[k * n + ip] += 1;
-			widen(ip, k);
-			widen(k, ip);
-			if (im >= 0) {
-				A[im * n + k] -= 1;
-				A[k * n + im] -= 1;
-				widen(im, k);
-				widen(k, im);
-			}
-			rhs[k] = net.ev[i];
-		}
-	}
-	// one 10 MΩ meter per merged node with an unknown volts (not on diode or battery internals)
-	const gm = 1 / METER_OHMS;
-	xs.fill(0, 0, nv);
-	for (let i = 0; i < nn; i++) {
-		if (!net.metered[i]) continue;
-		const k = gOf[root[i]];
-		if (k >= 0 && xs[k] === 0) {
-			xs[k] = 1;
-			A[k * n + k] += gm;
-		}
+	const fuses = net.fuses;
+	for (let f = 0; f < fuses.length; f++) if (!cfg.fuseOpen[f]) stampInto(st, A, rhs, n, ea[fuses[f]], eb[fuses[f]], g[fuses[f]], 0);
+	const diodes = net.diodes;
+	for (let d = 0; d < diodes.length; d++) {
+		const e = diodes[d];
+		if (cfg.diodeOn[d]) stampInto(st, A, rhs, n, ea[e], eb[e], g[e], g[e] * net.ev[e]);
 	}
 	if (n > 0) {
-		luFactor(A, n, perm, spans, true);
+		luFactor(A, n, perm, spans, 'lists');
 		luSolve(A, n, perm, rhs, xs, spans);
 	}
 	const V = w.V;
-	for (let i = 0; i < nn; i++) {
+	const root = st.root;
+	const gOf = st.gOf;
+	for (let i = 0; i < V.length; i++) {
 		if (gOf[i] === -2) {
 			V[i] = 0;
 			continue;
 		}
 		const r = root[i];
 		const k = gOf[r];
-		V[i] = k >= 0 ? xs[k] : w.fixedV[r];
+		V[i] = k >= 0 ? xs[k] : st.fixedV[r];
 	}
-	for (let dd = 0; dd < nd; dd++) {
-		const e = net.diodes[dd];
-		V[net.emid[e]] = cfg.diodeOn[dd] ? V[eb[e]] + net.ev[e] : V[eb[e]];
+	for (let d = 0; d < diodes.length; d++) {
+		const e = diodes[d];
+		V[net.emid[e]] = cfg.diodeOn[d] ? V[eb[e]] + net.ev[e] : V[eb[e]];
 	}
 	return true;
 }
