@@ -186,7 +186,7 @@ function layoutOnce(c: DiagramCircuit, opts: LayoutOptions, gap: number): Drawin
 	nodes.find('B+');
 	nodes.find('GND');
 	const keyOfEnd = (name: string): string => {
-		const e = readEndpoint(name, parts);
+		const e = readEndpoint(name);
 		if (e.kind === 'battery') return 'B+';
 		if (e.kind === 'chassis') return 'GND';
 		const p = parts.get(e.part);
@@ -495,7 +495,7 @@ function layoutOnce(c: DiagramCircuit, opts: LayoutOptions, gap: number): Drawin
 
 	// --- Grounds: ground parts and one symbol per wire to GND, under the pin they serve.
 	const pinXY = (name: string): { x: number; y: number } | null => {
-		const e = readEndpoint(name, parts);
+		const e = readEndpoint(name);
 		if (e.kind !== 'pin') return null;
 		const d = drawnById.get(e.part);
 		if (!d) return null;
@@ -594,7 +594,7 @@ function layoutOnce(c: DiagramCircuit, opts: LayoutOptions, gap: number): Drawin
 			d = drawnById.get(syntheticFor.get(wire.id)!);
 			pin = d!.id;
 		} else {
-			const e = readEndpoint(name, parts);
+			const e = readEndpoint(name);
 			if (e.kind !== 'pin') throw new DiagramLayoutError(`wire ${wire.id}: cannot find the end "${name}"`);
 			d = drawnById.get(e.part);
 			pin = e.pin;
@@ -737,8 +737,7 @@ function layoutOnce(c: DiagramCircuit, opts: LayoutOptions, gap: number): Drawin
 	if (bar) allSegs.push({ p: [bar.x1, bar.y], q: [bar.x2, bar.y], node: 'B+' });
 	const free = (b: Box) =>
 		b.x >= 0 && b.y >= 0 && b.x + b.w <= width && b.y + b.h <= height && !obstacles.some((o) => boxOverlap(o, b, 1)) && !placedLabels.some((o) => boxOverlap(o, b, 1));
-	const wireHits = (b: Box, except?: DrawnWire) =>
-		allSegs.filter((s) => !(except && except.points.some((pt) => pt === s.p)) && segBoxHit(s.p, s.q, b)).length;
+	const wireHits = (b: Box) => allSegs.filter((s) => segBoxHit(s.p, s.q, b)).length;
 
 	for (const w of wires) {
 		const lines: string[] = [];

@@ -122,14 +122,12 @@ export type Endpoint =
 	| { kind: 'pin'; part: string; pin: string };
 
 /** Reads a node name as the file writes it. Unknown names are left to the engine's validation. */
-export function readEndpoint(name: string, parts: Map<string, DiagramPart>): Endpoint {
+export function readEndpoint(name: string): Endpoint {
 	if (name === 'B+') return { kind: 'battery' };
 	if (name === 'GND') return { kind: 'chassis' };
 	const dot = name.indexOf('.');
-	if (dot < 0) {
-		const p = parts.get(name);
-		return { kind: 'pin', part: name, pin: p ? name : name };
-	}
+	// A bare id names a splice or ground, whose one pin carries the part's id.
+	if (dot < 0) return { kind: 'pin', part: name, pin: name };
 	return { kind: 'pin', part: name.slice(0, dot), pin: name.slice(dot + 1) };
 }
 
@@ -184,7 +182,7 @@ export function valueText(part: DiagramPart): string | null {
 
 /** How a person reads one end of a wire: "relay K1 pin 85", "battery positive (B+)", "ground G1". */
 export function endpointName(name: string, parts: Map<string, DiagramPart>): string {
-	const e = readEndpoint(name, parts);
+	const e = readEndpoint(name);
 	if (e.kind === 'battery') return 'battery positive (B+)';
 	if (e.kind === 'chassis') return 'chassis ground (GND)';
 	const part = parts.get(e.part);
