@@ -3,7 +3,7 @@
  * for the solver. Everything the settling loop does not change is fixed here once.
  */
 import { SolveOptionError } from './errors';
-import { FUSE_TYPES, type Circuit, type NetElement } from './model';
+import { FUSE_TYPES, LOAD_TYPES, type Circuit, type NetElement } from './model';
 import { TEST_LAMP_WATTS } from './tables';
 import { makeSets, unite } from './union-find';
 
@@ -72,7 +72,39 @@ export type Net = {
 	relayOfEl: Int32Array;
 	/** Relay index of each part (-1 for non-relays). */
 	relayOfPart: Int32Array;
+	/** What each part reports (see `PartKind`). */
+	partKind: Uint8Array;
+	/** 1 for the battery's internal resistance (its current is taken from KCL, like the source's). */
+	seriesOfSource: Uint8Array;
 };
+
+/** Part kinds for reporting status and current. */
+export const enum PartKind {
+	Fuse = 0,
+	Breaker = 1,
+	Relay = 2,
+	Switch = 3,
+	Positioned = 4,
+	Load = 5,
+	Diode = 6,
+	Supply = 7,
+	Resistor = 8,
+	Bond = 9,
+	Splice = 10
+}
+
+function partKindOf(p: Circuit['parts'][number]): PartKind {
+	if (p.type === 'breaker') return PartKind.Breaker;
+	if (FUSE_TYPES.has(p.type)) return PartKind.Fuse;
+	if (p.type === 'relay') return PartKind.Relay;
+	if (p.type === 'switch') return p.positions ? PartKind.Positioned : PartKind.Switch;
+	if (LOAD_TYPES.has(p.type)) return PartKind.Load;
+	if (p.type === 'diode') return PartKind.Diode;
+	if (p.type === 'supply') return PartKind.Supply;
+	if (p.type === 'resistor') return PartKind.Resistor;
+	if (p.type === 'connector' || p.type === 'ground') return PartKind.Bond;
+	return PartKind.Splice;
+}
 
 /** Resolves a lamp option to [node index, other end node index]. @throws SolveOptionError. */
 function lampEnds(c: Circuit, lamp: string): [number, number] {
@@ -258,7 +290,11 @@ function buildNet(c: Circuit, state: string | null | undefined, lamp: string | n
 		relayOfPart[relayPart[r]] = r;
 		for (const e of [relayNo[r], relayNc[r], relayCoil[r]]) if (e >= 0) relayOfEl[e] = r;
 	}
+	const partKind = Uint8Array.from(c.parts.map(partKindOf));
+	const seriesOfSource = Uint8Array.from(els.map((e) => (e.kind === 'source' && e.role === 'resistor' ? 1 : 0)));
 	return {
+		partKind,
+		seriesOfSource,
 		order,
 		pointNode,
 		partEls,

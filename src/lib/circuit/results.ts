@@ -6,7 +6,7 @@
 import { luFactor, luSolve } from './lu';
 import { contactClosed, elementAmps, type Config, type Work } from './mna';
 import { FUSE_TYPES, LOAD_TYPES } from './model';
-import { Code, type Net } from './netlist';
+import { Code, PartKind, type Net } from './netlist';
 import type { Settled } from './settle';
 import {
 	LOAD_ON_FRACTION,
@@ -74,7 +74,7 @@ export function elementCurrents(s: Settled): { amps: Float64Array; meter: Float6
 		const b = net.eb[i];
 		// the battery's own resistance is in series with its EMF: its current follows from KCL like the
 		// source's, which keeps 1/ohms times the rounding of the B+ volts out of the reported currents
-		if (net.els[i].kind === 'source' && net.code[i] === Code.Resistor) graphEl.push(i);
+		if (net.seriesOfSource[i]) graphEl.push(i);
 		else if (resistiveOn(net, cfg, i, fs, ds)) {
 			const I = elementAmps(net, w, i);
 			amps[i] = I;
@@ -251,54 +251,61 @@ export function buildResult(s: Settled, fault: string | null, needAmps: boolean)
  * from `elementCurrents`; without it, 0 Ω elements and sources report 0 A (statuses do not need them).
  */
 export function partState(s: Settled, pi: number, cur: Float64Array | null): { status: string | null; amps: number } {
-	const { net, cfg, work: w } = s;
-	const c = net.circuit;
-	const p = c.parts[pi];
-	const fs = net.fuseSlot;
-	const ds = net.diodeSlot;
+	const net = s.net;
+	const cfg = s.cfg;
 	const els = net.partEls[pi];
+	const e0 = els.length > 0 ? els[0] : -1;
 	let status: string | null = null;
 	let amps = 0;
-	if (FUSE_TYPES.has(p.type)) {
-		let e: number | undefined;
-		for (const i of els) if (net.code[i] === Code.Fuse) e = i;
-		const open = e === undefined || cfg.fuseOpen[fs[e]] === 1;
-		status = open ? (p.type === 'breaker' ? 'tripped' : 'blown') : 'ok';
-		amps = open ? 0 : ampsOfEl(s, cur, e!);
-	} else if (p.type === 'relay') {
-		const r = net.relayOfPart[pi];
-		const st = cfg.relay[r];
-		status = st === 2 ? 'chattering' : st === 1 ? 'energized' : 'released';
-		const coil = net.relayCoil[r];
-		amps = coil >= 0 ? ampsOfEl(s, cur, coil) : 0;
-	} else if (p.type === 'switch') {
-		if (p.positions) {
-			let setting: string | undefined;
-			for (const x of c.states) if (x.name === net.state) setting = x.switches[p.id];
-			status = setting ?? p.positions[0].name;
-			for (const e of els) if (net.code[e] === Code.Ideal) amps = Math.max(amps, cur ? Math.abs(cur[e]) : 0);
-		} else {
-			const e = els[0];
-			const closed = e !== undefined && net.code[e] === Code.Ideal;
-			status = closed ? 'closed' : 'open';
-			amps = closed && cur ? Math.abs(cur[e]) : 0;
+	switch (net.partKind[pi]) {
+		case PartKind.Fuse:
+		case PartKind.Breaker: {
+			const open = e0 < 0 || cfg.fuseOpen[net.fuseSlot[e0]] === 1;
+			status = open ? (net.partKind[pi] === PartKind.Breaker ? 'tripped' : 'blown') : 'ok';
+			amps = open ? 0 : ampsOfEl(s, cur, e0);
+			break;
 		}
-	} else if (LOAD_TYPES.has(p.type)) {
-		const e = els[0];
-		amps = e !== undefined ? ampsOfEl(s, cur, e) : 0;
-		status = loadStatus(amps, net.emf, p.ohms!);
-	} else if (p.type === 'diode') {
-		const e = els[0];
-		const on = e !== undefined && cfg.diodeOn[ds[e]] === 1;
-		status = on ? 'conducting' : 'blocking';
-		amps = on ? ampsOfEl(s, cur, e) : 0;
-	} else if (p.type === 'supply') {
-		const e = els[0];
-		amps = e !== undefined && cur ? Math.abs(cur[e]) : 0;
-	} else if (p.type === 'resistor') {
-		amps = els[0] !== undefined ? ampsOfEl(s, cur, els[0]) : 0;
-	} else if (p.type === 'connector' || p.type === 'ground') {
-		for (const e of els) amps = Math.max(amps, net.code[e] === Code.Ideal ? (cur ? Math.abs(cur[e]) : 0) : ampsOfEl(s, cur, e));
+		case PartKind.Relay: {
+			const r = net.relayOfPart[pi];
+			const st = cfg.relay[r];
+			status = st === 2 ? 'chattering' : st === 1 ? 'energized' : 'released';
+			const coil = net.relayCoil[r];
+			amps = coil >= 0 ? ampsOfEl(s, cur, coil) : 0;
+			break;
+		}
+		case PartKind.Positioned: {
+			const p = net.circuit.parts[pi];
+			let setting: string | undefined;
+			for (const x of net.circuit.states) if (x.name === net.state) setting = x.switches[p.id];
+			status = setting ?? p.positions![0].name;
+			if (cur) for (const e of els) if (net.code[e] === Code.Ideal) amps = Math.max(amps, Math.abs(cur[e]));
+			break;
+		}
+		case PartKind.Switch: {
+			const closed = e0 >= 0 && net.code[e0] === Code.Ideal;
+			status = closed ? 'closed' : 'open';
+			amps = closed && cur ? Math.abs(cur[e0]) : 0;
+			break;
+		}
+		case PartKind.Load:
+			amps = e0 >= 0 ? ampsOfEl(s, cur, e0) : 0;
+			status = loadStatus(amps, net.emf, net.circuit.parts[pi].ohms!);
+			break;
+		case PartKind.Diode: {
+			const on = e0 >= 0 && cfg.diodeOn[net.diodeSlot[e0]] === 1;
+			status = on ? 'conducting' : 'blocking';
+			amps = on ? ampsOfEl(s, cur, e0) : 0;
+			break;
+		}
+		case PartKind.Supply:
+			amps = e0 >= 0 && cur ? Math.abs(cur[e0]) : 0;
+			break;
+		case PartKind.Resistor:
+			amps = e0 >= 0 ? ampsOfEl(s, cur, e0) : 0;
+			break;
+		case PartKind.Bond:
+			for (const e of els) amps = Math.max(amps, net.code[e] === Code.Ideal ? (cur ? Math.abs(cur[e]) : 0) : ampsOfEl(s, cur, e));
+			break;
 	}
 	return { status, amps: roundAmps(amps) };
 }
