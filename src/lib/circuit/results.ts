@@ -63,38 +63,91 @@ export function elementCurrents(s: Settled): { amps: Float64Array; meter: Float6
 	const { net, cfg, work: w } = s;
 	const ne = net.els.length;
 	const nn = net.nNodes;
+	const plan = currentPlan(s);
 	const amps = new Float64Array(ne);
-	const inflow = new Float64Array(nn);
-	const rel = relayOfElements(net);
-	const fs = fuseSlots(net);
-	const ds = diodeSlots(net);
-	const graphEl: number[] = [];
-	for (let i = 0; i < ne; i++) {
-		const a = net.ea[i];
-		const b = net.eb[i];
-		// the battery's own resistance is in series with its EMF: its current follows from KCL like the
-		// source's, which keeps 1/ohms times the rounding of the B+ volts out of the reported currents
-		if (net.seriesOfSource[i]) graphEl.push(i);
-		else if (resistiveOn(net, cfg, i, fs, ds)) {
-			const I = elementAmps(net, w, i);
-			amps[i] = I;
-			inflow[b] += I;
-			inflow[a] -= I;
-		} else if ((net.code[i] === Code.Source && w.srcOn[i]) || isIdealOn(net, cfg, i, rel)) graphEl.push(i);
-	}
 	const meter = new Float64Array(nn);
-	for (let i = 0; i < nn; i++) {
-		if (!net.metered[i] || w.gOf[i] === -2) continue;
-		const r = w.root[i];
-		if (r !== i || r === w.root[1]) continue;
-		const I = w.V[i] / METER_OHMS;
+	if (inflowScratch.length < nn) inflowScratch = new Float64Array(nn);
+	const inflow = inflowScratch;
+	inflow.fill(0, 0, nn);
+	const fs = net.fuseSlot;
+	const ds = net.diodeSlot;
+	const V = w.V;
+	for (let i = 0; i < ne; i++) {
+		if (net.seriesOfSource[i] || !resistiveOn(net, cfg, i, fs, ds)) continue;
+		const I = net.code[i] === Code.Diode ? (V[net.ea[i]] - V[net.eb[i]] - net.ev[i]) * net.g[i] : (V[net.ea[i]] - V[net.eb[i]]) * net.g[i];
+		amps[i] = I;
+		inflow[net.eb[i]] += I;
+		inflow[net.ea[i]] -= I;
+	}
+	const mr = plan.meterRoots;
+	for (let q = 0; q < mr.length; q++) {
+		const r = mr[q];
+		const I = V[r] / METER_OHMS;
 		meter[r] = I;
 		inflow[r] -= I;
 		inflow[1] += I;
 	}
+	const st = plan.steps;
+	for (let q = 0; q < st.length; q += 3) {
+		const e = st[q];
+		const v = st[q + 1];
+		const u = st[q + 2];
+		const I = net.ea[e] === v ? inflow[v] : -inflow[v];
+		amps[e] = net.code[e] === Code.Source ? -I : I;
+		inflow[u] += inflow[v];
+		inflow[v] = 0;
+	}
+	for (const core of plan.cores) {
+		const k = core.mem.length - 1;
+		const rhsv = new Float64Array(k);
+		const phi = new Float64Array(k + 1);
+		for (let q = 0; q < k; q++) rhsv[q] = inflow[core.mem[q]];
+		if (k > 0) luSolve(core.L, k, core.perm, rhsv, phi);
+		for (let q = 0; q < core.edges.length; q++) {
+			const e = core.edges[q];
+			const I = phi[core.la[q]] - phi[core.lb[q]];
+			amps[e] = net.code[e] === Code.Source ? -I : I;
+		}
+	}
+	return { amps, meter };
+}
+
+let inflowScratch = new Float64Array(0);
+
+/**
+ * How currents of 0 Ω elements and sources follow from KCL in one relay configuration: the order in
+ * which leaves of their graph are peeled (element, leaf node, other node) and, for what remains (loops
+ * of 0 Ω elements), unit-weight Laplacians already factored. Also the merged nodes carrying a meter.
+ */
+type CurrentPlan = {
+	/** Union-find of 0 Ω merges and always-conducting elements (resistors, coils), for reachability. */
+	reachBase: Int32Array;
+	/** B+, GND and the terminals of sources in place. */
+	seeds: Int32Array;
+	meterRoots: Int32Array;
+	steps: Int32Array;
+	cores: { mem: Int32Array; edges: Int32Array; la: Int32Array; lb: Int32Array; L: Float64Array; perm: Int32Array }[];
+};
+
+const plans = new WeakMap<Int32Array, CurrentPlan>();
+
+function currentPlan(s: Settled): CurrentPlan {
+	const hit = plans.get(s.work.root);
+	if (hit) return hit;
+	const { net, cfg, work: w } = s;
+	const ne = net.els.length;
+	const nn = net.nNodes;
+	const rel = net.relayOfEl;
+	const meterRoots: number[] = [];
+	for (let i = 0; i < nn; i++) {
+		if (!net.metered[i] || w.gOf[i] === -2) continue;
+		const r = w.root[i];
+		if (r === i && r !== w.root[1]) meterRoots.push(r);
+	}
+	const graphEl: number[] = [];
+	for (let i = 0; i < ne; i++)
+		if (net.seriesOfSource[i] || (net.code[i] === Code.Source && w.srcOn[i]) || isIdealOn(net, cfg, i, rel)) graphEl.push(i);
 	const ng = graphEl.length;
-	if (ng === 0) return { amps, meter };
-	// peel leaves of the graph of 0 Ω elements and sources: a tree's currents follow from KCL alone
 	const deg = new Int32Array(nn + 1);
 	for (let q = 0; q < ng; q++) {
 		deg[net.ea[graphEl[q]] + 1]++;
@@ -113,7 +166,7 @@ export function elementCurrents(s: Settled): { amps: Float64Array; meter: Float6
 	const done = new Uint8Array(ng);
 	const stack: number[] = [];
 	for (let i = 0; i < nn; i++) if (left[i] === 1) stack.push(i);
-	let remaining = ng;
+	const steps: number[] = [];
 	while (stack.length) {
 		const v = stack.pop()!;
 		if (left[v] !== 1) continue;
@@ -121,19 +174,13 @@ export function elementCurrents(s: Settled): { amps: Float64Array; meter: Float6
 		for (let k = start[v]; k < start[v + 1]; k++) if (!done[inc[k]]) q = inc[k];
 		const e = graphEl[q];
 		done[q] = 1;
-		remaining--;
-		const toB = net.ea[e] === v;
-		const u = toB ? net.eb[e] : net.ea[e];
-		const I = toB ? inflow[v] : -inflow[v];
-		amps[e] = net.code[e] === Code.Source ? -I : I;
-		inflow[u] += inflow[v];
-		inflow[v] = 0;
+		const u = net.ea[e] === v ? net.eb[e] : net.ea[e];
+		steps.push(e, v, u);
 		left[v]--;
 		left[u]--;
 		if (left[u] === 1) stack.push(u);
 	}
-	if (remaining === 0) return { amps, meter };
-	// loops of 0 Ω elements: the minimum-norm split, a unit-weight Laplacian over each loop's nodes
+	const cores: CurrentPlan['cores'] = [];
 	const p = new Int32Array(nn);
 	for (let i = 0; i < nn; i++) p[i] = i;
 	const coreEdges: number[] = [];
@@ -142,63 +189,73 @@ export function elementCurrents(s: Settled): { amps: Float64Array; meter: Float6
 			coreEdges.push(graphEl[q]);
 			unite(p, net.ea[graphEl[q]], net.eb[graphEl[q]]);
 		}
-	const comps = new Map<number, number[]>();
-	for (let i = 0; i < nn; i++) {
-		if (left[i] === 0) continue;
-		const r = findRoot(p, i);
-		let l = comps.get(r);
-		if (!l) comps.set(r, (l = []));
-		l.push(i);
-	}
-	for (const [r, mem] of comps) {
-		const m = mem.length;
-		const local = new Map(mem.map((v, k) => [v, k]));
-		const k = m - 1;
-		const L = new Float64Array(k * k);
-		const rhsv = new Float64Array(k);
-		const es = coreEdges.filter((e) => findRoot(p, net.ea[e]) === r);
-		for (const e of es) {
-			const a = local.get(net.ea[e])!;
-			const b = local.get(net.eb[e])!;
-			if (a === b) continue;
-			if (a < k) L[a * k + a] += 1;
-			if (b < k) L[b * k + b] += 1;
-			if (a < k && b < k) {
-				L[a * k + b] -= 1;
-				L[b * k + a] -= 1;
+	if (coreEdges.length) {
+		const comps = new Map<number, number[]>();
+		for (let i = 0; i < nn; i++) {
+			if (left[i] === 0) continue;
+			const r = findRoot(p, i);
+			let l = comps.get(r);
+			if (!l) comps.set(r, (l = []));
+			l.push(i);
+		}
+		for (const [r, mem] of comps) {
+			const m = mem.length;
+			const local = new Map(mem.map((v, k) => [v, k]));
+			const k = m - 1;
+			const L = new Float64Array(k * k);
+			const es = coreEdges.filter((e) => findRoot(p, net.ea[e]) === r);
+			const la = Int32Array.from(es, (e) => local.get(net.ea[e])!);
+			const lb = Int32Array.from(es, (e) => local.get(net.eb[e])!);
+			for (let q = 0; q < es.length; q++) {
+				const a = la[q];
+				const b = lb[q];
+				if (a === b) continue;
+				if (a < k) L[a * k + a] += 1;
+				if (b < k) L[b * k + b] += 1;
+				if (a < k && b < k) {
+					L[a * k + b] -= 1;
+					L[b * k + a] -= 1;
+				}
 			}
-		}
-		for (let q = 0; q < k; q++) rhsv[q] = inflow[mem[q]];
-		const perm = new Int32Array(k);
-		const phi = new Float64Array(m);
-		if (k > 0) {
-			luFactor(L, k, perm);
-			luSolve(L, k, perm, rhsv, phi);
-		}
-		for (const e of es) {
-			const I = phi[local.get(net.ea[e])!] - phi[local.get(net.eb[e])!];
-			amps[e] = net.code[e] === Code.Source ? -I : I;
+			const perm = new Int32Array(k);
+			if (k > 0) luFactor(L, k, perm);
+			cores.push({ mem: Int32Array.from(mem), edges: Int32Array.from(es), la, lb, L, perm });
 		}
 	}
-	return { amps, meter };
+	const reachBase = w.parent.slice();
+	const seeds: number[] = [0, 1];
+	for (let i = 0; i < ne; i++) {
+		const c = net.code[i];
+		if (c === Code.Resistor || c === Code.Coil) unite(reachBase, net.ea[i], net.eb[i]);
+		else if (c === Code.Source && w.gOf[net.ea[i]] !== -2) seeds.push(net.ea[i], net.eb[i]);
+	}
+	const plan: CurrentPlan = {
+		reachBase,
+		seeds: Int32Array.from(seeds),
+		meterRoots: Int32Array.from(meterRoots),
+		steps: Int32Array.from(steps),
+		cores
+	};
+	plans.set(w.root, plan);
+	return plan;
 }
 
 /** Which nodes have a conducting path (meters excluded) to B+, GND or a source terminal. */
 export function reachableNodes(s: Settled): Uint8Array {
-	const { net, cfg, work: w } = s;
+	const { net, cfg } = s;
 	const nn = net.nNodes;
-	const p = w.parent.slice();
-	const fs = fuseSlots(net);
-	const ds = diodeSlots(net);
-	const seeds: number[] = [0, 1];
-	for (let i = 0; i < net.els.length; i++) {
-		if (resistiveOn(net, cfg, i, fs, ds)) {
-			unite(p, net.ea[i], net.eb[i]);
-			if (net.code[i] === Code.Diode) unite(p, net.ea[i], net.emid[i]);
-		} else if (net.code[i] === Code.Source && w.gOf[net.ea[i]] !== -2) seeds.push(net.ea[i], net.eb[i]);
+	const plan = currentPlan(s);
+	const p = plan.reachBase.slice();
+	for (let f = 0; f < net.fuses.length; f++) if (!cfg.fuseOpen[f]) unite(p, net.ea[net.fuses[f]], net.eb[net.fuses[f]]);
+	for (let d = 0; d < net.diodes.length; d++) {
+		const e = net.diodes[d];
+		if (!cfg.diodeOn[d]) continue;
+		unite(p, net.ea[e], net.eb[e]);
+		unite(p, net.ea[e], net.emid[e]);
 	}
 	const live = new Uint8Array(nn);
-	for (const sd of seeds) live[findRoot(p, sd)] = 1;
+	const seeds = plan.seeds;
+	for (let q = 0; q < seeds.length; q++) live[findRoot(p, seeds[q])] = 1;
 	const out = new Uint8Array(nn);
 	for (let i = 0; i < nn; i++) out[i] = live[findRoot(p, i)];
 	return out;
