@@ -1,0 +1,72 @@
+/**
+ * Ability and difficulty on one logit scale (the Rasch model, Rasch 1960), updated answer by answer with
+ * the Elo rule for adaptive learning systems (Pelánek 2016). Formulas in docs/learning.md.
+ */
+
+/** Rasch probability that a learner of ability `theta` answers an item of difficulty `b` right. */
+export function pSuccess(theta: number, b: number): number {
+	return 1 / (1 + Math.exp(-(theta - b)));
+}
+
+/** The difficulty at which a learner of ability `theta` succeeds with probability `p` (0 < p < 1). */
+export function difficultyFor(theta: number, p: number): number {
+	return theta - Math.log(p / (1 - p));
+}
+
+/** An estimate with the number of answers behind it; plain data the server stores. */
+export type Estimate = { value: number; count: number };
+
+/** The uncertainty function K(n) = ALPHA / (1 + BETA·n) (Pelánek 2016, values from Papoušek et al. 2014). */
+export const ELO_ALPHA = 1;
+export const ELO_BETA = 0.05;
+
+export function eloStep(count: number): number {
+	return ELO_ALPHA / (1 + ELO_BETA * count);
+}
+
+/**
+ * One answer: the learner's area ability moves by K(n_a)·(correct − p), the skill's difficulty by
+ * −K(n_s)·(correct − p), where p = pSuccess(ability, difficulty) before the answer.
+ */
+export function updateAbility(ability: Estimate, difficulty: number, correct: boolean): Estimate {
+	const p = pSuccess(ability.value, difficulty);
+	return { value: ability.value + eloStep(ability.count) * ((correct ? 1 : 0) - p), count: ability.count + 1 };
+}
+
+/** The skill's side of the same answer (shared by all variants of the skill). */
+export function updateDifficulty(difficulty: Estimate, ability: number, correct: boolean): Estimate {
+	const p = pSuccess(ability, difficulty.value);
+	return { value: difficulty.value - eloStep(difficulty.count) * ((correct ? 1 : 0) - p), count: difficulty.count + 1 };
+}
+
+/** A starting difficulty from the generator's prior. */
+export function priorDifficulty(prior: number): Estimate {
+	return { value: prior, count: 0 };
+}
+
+/**
+ * Maximum a posteriori ability under the Rasch model with a normal prior N(mean, sd²), by Newton's
+ * method. `responses` pair an item difficulty with the outcome.
+ */
+export function mapAbility(responses: readonly { difficulty: number; correct: boolean }[], mean = 0, sd = 1.5): number {
+	let theta = mean;
+	for (let it = 0; it < 50; it++) {
+		let grad = -(theta - mean) / (sd * sd);
+		let info = 1 / (sd * sd);
+		for (const r of responses) {
+			const p = pSuccess(theta, r.difficulty);
+			grad += (r.correct ? 1 : 0) - p;
+			info += p * (1 - p);
+		}
+		const step = Math.max(-1, Math.min(1, grad / info));
+		theta += step;
+		if (Math.abs(step) < 1e-9) break;
+	}
+	return theta;
+}
+
+/** The ability for an area from a stored map; an area with none counts as 0 (the population mean). */
+export function abilityOf(abilities: Readonly<Record<string, Estimate | number>>, area: string): number {
+	const a = abilities[area];
+	return a == null ? 0 : typeof a === 'number' ? a : a.value;
+}
