@@ -552,48 +552,52 @@ function assemble(
 ): Circuit {
 	const nodeNames = fileNodes.slice();
 	const idx = new Map(fileNodes.map((n, i) => [n, i]));
-	const at = (n: string) => idx.get(n)!;
 	const elements: NetElement[] = [];
-	const base = { volts: 0, ohms: 0 };
 	let plus = 0;
 	if (supply.ohms > 0) {
 		plus = nodeNames.length;
 		nodeNames.push('B+#emf');
 	}
-	elements.push({ ...base, id: 'battery', pathId: null, kind: 'source', role: 'source', a: plus, b: 1, volts: supply.volts, part: -1, battery: true });
-	if (supply.ohms > 0)
-		elements.push({ ...base, id: 'battery#ohms', pathId: null, kind: 'source', role: 'resistor', a: plus, b: 0, ohms: supply.ohms, part: -1 });
-	parts.forEach((p, pi) => {
-		const pin = (x: string) => at(`${p.id}.${x}`);
-		const el = (o: Partial<NetElement> & Pick<NetElement, 'role' | 'a' | 'b'>) =>
-			elements.push({ ...base, id: p.id, pathId: p.id, kind: 'part', part: pi, ...o });
-		if (FUSE_TYPES.has(p.type)) el({ role: 'fuse', a: pin('1'), b: pin('2'), ohms: FUSE_OHMS });
+	const battery = makeElement('battery', null, 'source', 'source', plus, 1, 0, supply.volts, -1);
+	battery.battery = true;
+	elements.push(battery);
+	if (supply.ohms > 0) elements.push(makeElement('battery#ohms', null, 'source', 'resistor', plus, 0, supply.ohms, 0, -1));
+	for (let pi = 0; pi < parts.length; pi++) {
+		const p = parts[pi];
+		const id = p.id;
+		const pin = (x: string) => idx.get(`${id}.${x}`)!;
+		if (FUSE_TYPES.has(p.type)) elements.push(makeElement(id, id, 'part', 'fuse', pin('1'), pin('2'), FUSE_OHMS, 0, pi));
 		else if (p.type === 'relay') {
-			el({ id: `${p.id}.coil`, pathId: `${p.id}.coil`, role: 'coil', a: pin('86'), b: pin('85'), ohms: p.ohms! });
-			el({ id: `${p.id}.contact`, pathId: `${p.id}.contact`, role: 'no', a: pin('30'), b: pin('87') });
-			el({ id: `${p.id}.contact`, pathId: `${p.id}.contact`, role: 'nc', a: pin('30'), b: pin('87a') });
+			elements.push(makeElement(`${id}.coil`, `${id}.coil`, 'part', 'coil', pin('86'), pin('85'), p.ohms!, 0, pi));
+			elements.push(makeElement(`${id}.contact`, `${id}.contact`, 'part', 'no', pin('30'), pin('87'), 0, 0, pi));
+			elements.push(makeElement(`${id}.contact`, `${id}.contact`, 'part', 'nc', pin('30'), pin('87a'), 0, 0, pi));
 		} else if (p.type === 'switch') {
 			if (p.positions) {
 				for (const pos of p.positions)
-					for (const [x, y] of pos.pairs) el({ role: 'position', a: pin(x), b: pin(y), position: pos.name });
-			} else el({ role: 'switch', a: pin('1'), b: pin('2') });
-		} else if (LOAD_TYPES.has(p.type) || p.type === 'resistor') el({ role: 'resistor', a: pin('1'), b: pin('2'), ohms: p.ohms! });
+					for (const [x, y] of pos.pairs) {
+						const e = makeElement(id, id, 'part', 'position', pin(x), pin(y), 0, 0, pi);
+						e.position = pos.name;
+						elements.push(e);
+					}
+			} else elements.push(makeElement(id, id, 'part', 'switch', pin('1'), pin('2'), 0, 0, pi));
+		} else if (LOAD_TYPES.has(p.type) || p.type === 'resistor') elements.push(makeElement(id, id, 'part', 'resistor', pin('1'), pin('2'), p.ohms!, 0, pi));
 		else if (p.type === 'diode') {
-			el({ role: 'diode', a: pin('a'), b: pin('k'), ohms: p.ohms!, volts: p.drop!, mid: nodeNames.length });
-			nodeNames.push(`${p.id}#int`);
-		} else if (p.type === 'supply') el({ kind: 'source', role: 'source', a: pin('+'), b: pin('-'), volts: p.volts! });
+			const e = makeElement(id, id, 'part', 'diode', pin('a'), pin('k'), p.ohms!, p.drop!, pi);
+			e.mid = nodeNames.length;
+			elements.push(e);
+			nodeNames.push(`${id}#int`);
+		} else if (p.type === 'supply') elements.push(makeElement(id, id, 'source', 'source', pin('+'), pin('-'), 0, p.volts!, pi));
 		else if (p.type === 'connector') {
-			for (let n = 1; n <= p.cavities!; n++)
-				el({ id: `${p.id}.${n}`, pathId: `${p.id}.${n}`, role: 'ideal', a: pin(`${n}a`), b: pin(`${n}b`) });
+			for (let n = 1; n <= p.cavities!; n++) elements.push(makeElement(`${id}.${n}`, `${id}.${n}`, 'part', 'ideal', pin(`${n}a`), pin(`${n}b`), 0, 0, pi));
 		} else if (p.type === 'ground') {
-			if (p.ohms! > 0) el({ role: 'resistor', a: at(p.id), b: 1, ohms: p.ohms! });
-			else el({ role: 'ideal', a: at(p.id), b: 1 });
+			const g = idx.get(id)!;
+			elements.push(makeElement(id, id, 'part', p.ohms! > 0 ? 'resistor' : 'ideal', g, 1, p.ohms!, 0, pi));
 		}
-	});
-	wires.forEach((w, i) => {
-		const [a, b] = wireEnds[i];
-		elements.push({ ...base, id: w.id, pathId: w.id, kind: 'wire', role: w.ohms > 0 ? 'resistor' : 'ideal', a, b, ohms: w.ohms, part: -1 });
-	});
+	}
+	for (let i = 0; i < wires.length; i++) {
+		const w = wires[i];
+		elements.push(makeElement(w.id, w.id, 'wire', w.ohms > 0 ? 'resistor' : 'ideal', wireEnds[i][0], wireEnds[i][1], w.ohms, 0, -1));
+	}
 	return {
 		id,
 		title,
@@ -609,4 +613,19 @@ function assemble(
 		deadCoils: [],
 		openedParts: []
 	};
+}
+
+/** One electrical element with every field present (a stable object shape). */
+function makeElement(
+	id: string,
+	pathId: string | null,
+	kind: NetElement['kind'],
+	role: NetElement['role'],
+	a: number,
+	b: number,
+	ohms: number,
+	volts: number,
+	part: number
+): NetElement {
+	return { id, pathId, kind, role, a, b, ohms, volts, part, position: undefined, stuck: undefined, dead: undefined, mid: undefined, battery: undefined };
 }
