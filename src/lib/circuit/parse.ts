@@ -4,6 +4,7 @@
  */
 import { LineCounter, isMap, isScalar, isSeq, parseDocument, type Node as YamlNode } from 'yaml';
 import type { Problem } from './errors';
+import { readSimpleYaml } from './fast-yaml';
 
 /** A YAML value with the line it starts on. */
 export type Located =
@@ -12,10 +13,18 @@ export type Located =
 	| { kind: 'scalar'; line: number; value: string | number | boolean | null };
 
 /**
- * Reads YAML text. Returns the root value (null for an empty or unreadable document) and every YAML
+ * Reads YAML text: the plain subset that circuit files use through a fast reader, anything else
+ * through the full `yaml` reader (both give the same values and lines). Returns the root value (null for an empty or unreadable document) and every YAML
  * error as a problem with key `yaml`. Never throws.
  */
 export function readYaml(text: string): { root: Located | null; problems: Problem[] } {
+	const simple = readSimpleYaml(text);
+	if (simple) return { root: simple, problems: [] };
+	return readFullYaml(text);
+}
+
+/** Reads YAML text with the full `yaml` reader (any YAML, every error reported). Never throws. */
+export function readFullYaml(text: string): { root: Located | null; problems: Problem[] } {
 	const lc = new LineCounter();
 	const doc = parseDocument(text, { lineCounter: lc, version: '1.2', schema: 'core', prettyErrors: false });
 	const problems: Problem[] = [];
