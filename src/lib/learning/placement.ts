@@ -1,12 +1,14 @@
 /**
  * Placement: a short first session chosen for measurement. Each next item is the one with the most
- * Fisher information (predicted success nearest 50 %) at the current ability estimate, taken from the
+ * Fisher information at the current ability estimate (predicted success nearest 50 % for an item that
+ * cannot be guessed; a little higher for a choice item), taken from the
  * content area with the fewest placement answers so far so that every area gets a start.
  */
 import { makeRng } from './rng';
-import { mapAbility, pSuccess, type Estimate } from './rasch';
+import { itemInformation, mapAbility, pWithGuess, type Estimate } from './rasch';
 
-export type PlacementCandidate = { id: string; skillId: string; area: string; difficulty: number };
+/** `guess`: the chance of guessing right (1 / options on a choice item); 0 or absent otherwise. */
+export type PlacementCandidate = { id: string; skillId: string; area: string; difficulty: number; guess?: number };
 export type PlacementResponse = PlacementCandidate & { correct: boolean };
 
 /** About this many items make a placement set. */
@@ -42,10 +44,10 @@ export function nextPlacementItem(input: {
 		open = open.filter((c) => (count.get(c.area) ?? 0) === fewest);
 	}
 	const rng = makeRng(`${input.seed}:${input.responses.length}`);
-	const scored = open.map((c) => ({ c, info: pSuccess(theta, c.difficulty) * (1 - pSuccess(theta, c.difficulty)), tie: rng.next() }));
+	const scored = open.map((c) => ({ c, info: itemInformation(theta, c.difficulty, c.guess ?? 0), tie: rng.next() }));
 	scored.sort((a, b) => b.info - a.info || a.tie - b.tie);
 	const best = scored[0].c;
-	const p = pSuccess(theta, best.difficulty);
+	const p = pWithGuess(theta, best.difficulty, best.guess ?? 0);
 	return { item: best, predictedSuccess: p, reason: `placement: predicted success ${Math.round(p * 100)} % at the current estimate ${theta.toFixed(2)}, the most informative item left in ${best.area}` };
 }
 

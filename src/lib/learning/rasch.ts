@@ -45,18 +45,37 @@ export function priorDifficulty(prior: number): Estimate {
 }
 
 /**
- * Maximum a posteriori ability under the Rasch model with a normal prior N(mean, sd²), by Newton's
- * method. `responses` pair an item difficulty with the outcome.
+ * Probability of a right answer when a guess succeeds with chance `guess` (1 / options for a choice
+ * item, 0 otherwise): guess + (1 − guess)·pSuccess (the three-parameter logistic model with unit
+ * discrimination, Birnbaum 1968).
  */
-export function mapAbility(responses: readonly { difficulty: number; correct: boolean }[], mean = 0, sd = 1.5): number {
+export function pWithGuess(theta: number, b: number, guess = 0): number {
+	return guess + (1 - guess) * pSuccess(theta, b);
+}
+
+/** Fisher information of one item at `theta` (unit discrimination; with guessing, Birnbaum 1968). */
+export function itemInformation(theta: number, b: number, guess = 0): number {
+	const p = pWithGuess(theta, b, guess);
+	const q = pSuccess(theta, b);
+	return guess === 0 ? q * (1 - q) : ((1 - p) / p) * ((p - guess) / (1 - guess)) ** 2;
+}
+
+/**
+ * Maximum a posteriori ability with a normal prior N(mean, sd²), by Newton's method (Fisher scoring).
+ * `responses` pair an item difficulty (and an optional guessing chance) with the outcome.
+ */
+export function mapAbility(responses: readonly { difficulty: number; correct: boolean; guess?: number }[], mean = 0, sd = 1.5): number {
 	let theta = mean;
-	for (let it = 0; it < 50; it++) {
+	for (let it = 0; it < 100; it++) {
 		let grad = -(theta - mean) / (sd * sd);
 		let info = 1 / (sd * sd);
 		for (const r of responses) {
-			const p = pSuccess(theta, r.difficulty);
-			grad += (r.correct ? 1 : 0) - p;
-			info += p * (1 - p);
+			const c = r.guess ?? 0;
+			const q = pSuccess(theta, r.difficulty);
+			const p = c + (1 - c) * q;
+			// d log L / d theta for the 3PL with unit discrimination: (x − p)·(p − c) / (p·(1 − c)).
+			grad += ((r.correct ? 1 : 0) - p) * (c === 0 ? 1 : (p - c) / (p * (1 - c)));
+			info += itemInformation(theta, r.difficulty, c);
 		}
 		const step = Math.max(-1, Math.min(1, grad / info));
 		theta += step;

@@ -1,0 +1,359 @@
+/**
+ * Benchmark of the learning logic (src/lib/learning) on simulated learners over 60 days, with the exam on
+ * day 60. The simulated memory is NOT FSRS: a power-law forgetting curve with a per-learner decay,
+ * interference between skills of one area and a guessing floor on choice items (docs/learning.md,
+ * "The benchmark's learner"). Its constants (MODEL) were fixed before any of our parameters were tuned.
+ *
+ * Arms, on the same seeded random numbers:
+ *   ours   placement, then daily sets from composeDailySet, reviews scheduled by scheduleReview;
+ *   fixed  the same skills introduced on the same days as in "ours", each reviewed every 3 days;
+ *   random placement by uniformly random items (placement comparison only).
+ * Ends with one JSON line:
+ *   {"retention_ours", "retention_fixed", "reviews_ours", "reviews_fixed", "placement_items_ours",
+ *    "placement_items_random", "practice_accuracy", "readiness_brier"}
+ * Goals: retention_ours ≥ retention_fixed − 0.01 with reviews_ours ≤ 0.75 · reviews_fixed;
+ * placement_items_ours ≤ 0.7 · placement_items_random (= 20); practice accuracy in [0.80, 0.90];
+ * readiness Brier ≤ 0.20.
+ */
+import {
+	addDays,
+	assembleMockExam,
+	composeDailySet,
+	learningDayStart,
+	makeRng,
+	nextPlacementItem,
+	placementAbilities,
+	priorDifficulty,
+	rateAnswer,
+	readiness,
+	scheduleReview,
+	updateAbility,
+	updateDifficulty,
+	type Estimate,
+	type PlacementCandidate,
+	type PlacementResponse,
+	type Rng,
+	type SkillInfo,
+	type StoredCard
+} from '../src/lib/learning/index';
+
+/** The simulated learner's memory model; fixed, not tuned to the scheduler (docs/learning.md). */
+const MODEL = {
+	/** Overall ability ~ N(0, ABILITY_SD²); each area deviates by N(0, AREA_SD²). */
+	ABILITY_SD: 1,
+	AREA_SD: 0.5,
+	/** Power-law forgetting R(t) = (1 + t / s)^(−c), with c per learner, uniform in [DECAY_MIN, DECAY_MAX]. */
+	DECAY_MIN: 0.5,
+	DECAY_MAX: 0.9,
+	/** Memory strength s (days) after the first study. */
+	FIRST_STRENGTH: 2,
+	/** After a right answer at recall R: s ← s + GAIN · (s + 1) · (1 − R) (spacing: more gain when more was forgotten). */
+	GAIN: 3,
+	/** After a wrong answer (with the feedback shown): s ← LAPSE_KEEP · s + LAPSE_ADD. */
+	LAPSE_KEEP: 0.5,
+	LAPSE_ADD: 0.5,
+	/** Interference: each study of another skill of the same area adds this many days to a skill's age. */
+	INTERFERENCE_DAYS: 0.1,
+	/** A skill never studied is solved at the Rasch chance; once studied, at recall × Rasch chance + LEARNING_GAIN logits. */
+	LEARNING_GAIN: 1,
+	/** Choice items: a guessing floor of 1 in 4; share of skills whose items are choice items. */
+	GUESS: 0.25,
+	CHOICE_SHARE: 0.6,
+	/** Answer time: median × exp(N(0, TIME_SD²)) × (1 + SLOW_WHEN_FORGOTTEN · (1 − R)). */
+	TIME_SD: 0.35,
+	SLOW_WHEN_FORGOTTEN: 0.6
+};
+
+/** Our parameters for the run (the only ones tuned). */
+const OURS = { maxItems: 40, maxMinutes: 30, maxNew: 4 };
+
+const LEARNERS = Number(process.env.BENCH_LEARNERS ?? 300);
+const DAYS = 60;
+const AREAS = ['meters', 'diagrams', 'distribution', 'starting', 'charging', 'lighting', 'body', 'sensors', 'strategy'];
+const WEIGHTS: Record<string, number> = { meters: 12, diagrams: 14, distribution: 14, starting: 10, charging: 8, lighting: 10, body: 10, sensors: 10, strategy: 12 };
+const SKILLS_PER_AREA = 8;
+const VARIANTS_PER_SKILL = 8;
+const MEDIAN_SECONDS = 40;
+const ZONES = ['America/Denver', 'Europe/Berlin', 'Asia/Tokyo', 'America/New_York', 'Australia/Sydney'];
+const START_DAY = '2026-09-14';
+
+function normal(rng: Rng): number {
+	const u = Math.max(1e-12, rng.next());
+	return Math.sqrt(-2 * Math.log(u)) * Math.cos(2 * Math.PI * rng.next());
+}
+const sigma = (x: number) => 1 / (1 + Math.exp(-x));
+
+type PoolSkill = { id: string; area: string; trueDifficulty: number; prior: number; choice: boolean; variants: { id: string; trueDifficulty: number }[] };
+
+function buildPool(rng: Rng): PoolSkill[] {
+	const out: PoolSkill[] = [];
+	for (const area of AREAS)
+		for (let k = 0; k < SKILLS_PER_AREA; k++) {
+			const b = 1.5 * normal(rng);
+			const id = `${area}-${k}`;
+			out.push({
+				id,
+				area,
+				trueDifficulty: b,
+				prior: b + 0.5 * normal(rng),
+				choice: rng.next() < MODEL.CHOICE_SHARE,
+				variants: Array.from({ length: VARIANTS_PER_SKILL }, (_, v) => ({ id: `${id}-v${v}`, trueDifficulty: b + 0.15 * normal(rng) }))
+			});
+		}
+	return out;
+}
+
+/** One simulated learner's true state. */
+class Learner {
+	ability: Record<string, number> = {};
+	decay: number;
+	strength = new Map<string, number>();
+	lastStudy = new Map<string, number>();
+	interference = new Map<string, number>();
+	constructor(
+		rng: Rng,
+		public overall: number
+	) {
+		for (const a of AREAS) this.ability[a] = overall + MODEL.AREA_SD * normal(rng);
+		this.decay = MODEL.DECAY_MIN + (MODEL.DECAY_MAX - MODEL.DECAY_MIN) * rng.next();
+	}
+	/** Memory recall of a skill at time `day` (fractional days); null when never studied. */
+	recall(skill: PoolSkill, day: number): number | null {
+		const s = this.strength.get(skill.id);
+		if (s == null) return null;
+		const age = day - this.lastStudy.get(skill.id)! + MODEL.INTERFERENCE_DAYS * (this.interference.get(skill.id) ?? 0);
+		return Math.pow(1 + Math.max(0, age) / s, -this.decay);
+	}
+	pCorrect(skill: PoolSkill, variantDifficulty: number, day: number): { p: number; recall: number } {
+		const r = this.recall(skill, day);
+		const know = r == null ? sigma(this.ability[skill.area] - variantDifficulty) : r * sigma(this.ability[skill.area] - variantDifficulty + MODEL.LEARNING_GAIN);
+		const g = skill.choice ? MODEL.GUESS : 0;
+		return { p: g + (1 - g) * know, recall: r ?? 1 };
+	}
+	/** An answer with feedback is a study event. */
+	study(skill: PoolSkill, day: number, correct: boolean, pool: PoolSkill[]) {
+		const r = this.recall(skill, day);
+		const s = this.strength.get(skill.id);
+		let next: number;
+		if (s == null || r == null) next = MODEL.FIRST_STRENGTH;
+		else if (correct) next = s + MODEL.GAIN * (s + 1) * (1 - r);
+		else next = MODEL.LAPSE_KEEP * s + MODEL.LAPSE_ADD;
+		this.strength.set(skill.id, next);
+		this.lastStudy.set(skill.id, day);
+		this.interference.set(skill.id, 0);
+		for (const other of pool) if (other.area === skill.area && other.id !== skill.id && this.strength.has(other.id)) this.interference.set(other.id, (this.interference.get(other.id) ?? 0) + 1);
+	}
+}
+
+/** Local session time: 19:00 on learning day `d`, as fractional days since START_DAY (04:00 + 15 h). */
+const SESSION_OFFSET = 15 / 24;
+const EXAM_OFFSET = 5 / 24; // 09:00 on the exam day
+
+function sessionInstant(day: number, zone: string): number {
+	return learningDayStart(addDays(START_DAY, day), zone).getTime() + SESSION_OFFSET * 86_400_000;
+}
+
+type Outcome = { correct: boolean; seconds: number };
+function answer(rng: Rng, learner: Learner, skill: PoolSkill, variantId: string, day: number): Outcome {
+	const v = skill.variants.find((x) => x.id === variantId)!;
+	const { p, recall } = learner.pCorrect(skill, v.trueDifficulty, day);
+	const correct = rng.next() < p;
+	const seconds = MEDIAN_SECONDS * Math.exp(MODEL.TIME_SD * normal(rng)) * (1 + MODEL.SLOW_WHEN_FORGOTTEN * (1 - recall));
+	return { correct, seconds };
+}
+
+function placementCandidates(pool: PoolSkill[], difficulty: Map<string, Estimate>): PlacementCandidate[] {
+	return pool.map((s) => ({ id: s.variants[0].id, skillId: s.id, area: s.area, difficulty: difficulty.get(s.id)!.value, guess: s.choice ? MODEL.GUESS : 0 }));
+}
+
+// ---------------------------------------------------------------- placement comparison
+function placementComparison(pool: PoolSkill[], seed: number): { ours: number; random: number; rmseOurs: number[]; rmseRandom: number[] } {
+	const N = 30;
+	const people = 400;
+	const priors = new Map(pool.map((s) => [s.id, priorDifficulty(s.prior)]));
+	const cands = placementCandidates(pool, priors);
+	const sq = { ours: new Array(N + 1).fill(0), random: new Array(N + 1).fill(0) };
+	for (let i = 0; i < people; i++) {
+		const base = makeRng(seed * 7919 + i);
+		const learner = new Learner(base, MODEL.ABILITY_SD * normal(base));
+		for (const arm of ['ours', 'random'] as const) {
+			const rng = makeRng(`${seed}:${i}:answers`); // the same answer draws for both arms
+			const pick = makeRng(`${seed}:${i}:pick`);
+			const responses: PlacementResponse[] = [];
+			for (let n = 1; n <= N; n++) {
+				let item: PlacementCandidate;
+				if (arm === 'ours') item = nextPlacementItem({ candidates: cands, responses, length: N, seed: `${seed}:${i}` })!.item;
+				else {
+					const used = new Set(responses.map((r) => r.skillId));
+					const open = cands.filter((c) => !used.has(c.skillId));
+					item = open[pick.int(open.length)];
+				}
+				const skill = pool.find((s) => s.id === item.skillId)!;
+				responses.push({ ...item, correct: answer(rng, learner, skill, item.id, 0).correct });
+				const est = placementAbilities(responses, AREAS).overall;
+				sq[arm][n] += (est - learner.overall) ** 2;
+			}
+		}
+	}
+	const rmseOurs = sq.ours.map((x) => Math.sqrt(x / people));
+	const rmseRandom = sq.random.map((x) => Math.sqrt(x / people));
+	const target = rmseRandom[20];
+	let ours = N;
+	for (let n = 1; n <= N; n++)
+		if (rmseOurs[n] <= target) {
+			ours = n;
+			break;
+		}
+	return { ours, random: 20, rmseOurs, rmseRandom };
+}
+
+// ---------------------------------------------------------------- 60 days
+type ArmResult = { retention: number; reviews: number; introduced: Map<string, number> };
+
+function runOurs(pool: PoolSkill[], learner: Learner, zone: string, seed: string, difficulty: Map<string, Estimate>, tally: { right: number; answers: number }) {
+	const rng = makeRng(`${seed}:answers`);
+	const examDate = addDays(START_DAY, DAYS);
+	const cards: Record<string, StoredCard> = {};
+	const lastVariant: Record<string, string> = {};
+	const lastSeen: Record<string, number> = {};
+	const introduced = new Map<string, number>();
+	let reviews = 0;
+
+	// Day 0: placement (no feedback, so no study), then abilities per area.
+	const responses: PlacementResponse[] = [];
+	const cands = placementCandidates(pool, difficulty);
+	for (;;) {
+		const next = nextPlacementItem({ candidates: cands, responses, seed });
+		if (!next) break;
+		const skill = pool.find((s) => s.id === next.item.skillId)!;
+		const v = skill.variants[rng.int(skill.variants.length)];
+		responses.push({ ...next.item, id: v.id, correct: answer(rng, learner, skill, v.id, SESSION_OFFSET).correct });
+	}
+	const abilities: Record<string, Estimate> = placementAbilities(responses, AREAS).areas;
+
+	for (let day = 1; day < DAYS; day++) {
+		const now = sessionInstant(day, zone);
+		const skills: SkillInfo[] = pool.map((s) => ({ id: s.id, area: s.area, difficulty: difficulty.get(s.id)!.value, variants: s.variants.map((v) => ({ id: v.id, medianSeconds: MEDIAN_SECONDS })) }));
+		const set = composeDailySet({ now, timeZone: zone, skills, cards, lastVariant, abilities, settings: OURS, seed: `${seed}:${day}` });
+		for (const item of set.items) {
+			const skill = pool.find((s) => s.id === item.skillId)!;
+			const t = day + SESSION_OFFSET;
+			const out = answer(rng, learner, skill, item.itemId, t);
+			tally.answers++;
+			if (out.correct) tally.right++;
+			if (item.kind === 'review') reviews++;
+			else introduced.set(skill.id, day);
+			learner.study(skill, t, out.correct, pool);
+			const rating = rateAnswer({ correct: out.correct, seconds: out.seconds, medianSeconds: MEDIAN_SECONDS });
+			cards[skill.id] = scheduleReview(cards[skill.id] ?? null, rating, now, { timeZone: zone, examDate }).card;
+			lastVariant[skill.id] = item.itemId;
+			lastSeen[item.itemId] = now;
+			const a = abilities[skill.area];
+			const d = difficulty.get(skill.id)!;
+			abilities[skill.area] = updateAbility(a, d.value, out.correct);
+			difficulty.set(skill.id, updateDifficulty(d, a.value, out.correct));
+		}
+	}
+	const examT = DAYS + EXAM_OFFSET;
+	const retention = mean([...introduced.keys()].map((id) => learner.recall(pool.find((s) => s.id === id)!, examT)!));
+	return { retention, reviews, introduced, abilities, lastSeen };
+}
+
+function runFixed(pool: PoolSkill[], learner: Learner, seed: string, introduced: Map<string, number>): ArmResult {
+	const rng = makeRng(`${seed}:answers`);
+	let reviews = 0;
+	for (let day = 1; day < DAYS; day++) {
+		const t = day + SESSION_OFFSET;
+		for (const [id, first] of introduced) {
+			if (day < first || (day - first) % 3 !== 0) continue;
+			const skill = pool.find((s) => s.id === id)!;
+			const v = skill.variants[rng.int(skill.variants.length)];
+			const out = answer(rng, learner, skill, v.id, t);
+			if (day > first) reviews++;
+			learner.study(skill, t, out.correct, pool);
+		}
+	}
+	const examT = DAYS + EXAM_OFFSET;
+	return { retention: mean([...introduced.keys()].map((id) => learner.recall(pool.find((s) => s.id === id)!, examT)!)), reviews, introduced };
+}
+
+function mean(xs: number[]): number {
+	return xs.length ? xs.reduce((a, b) => a + b, 0) / xs.length : 0;
+}
+
+function main() {
+	const seed = Number(process.env.BENCH_SEED ?? 20260601);
+	const pool = buildPool(makeRng(`pool:${seed}`));
+	const started = performance.now();
+
+	const placement = placementComparison(pool, seed);
+	console.log(`placement RMSE of the overall ability by items (ours / random):`);
+	for (const n of [4, 8, 12, 14, 16, 20, 24]) console.log(`  ${String(n).padStart(2)} items: ${placement.rmseOurs[n].toFixed(3)} / ${placement.rmseRandom[n].toFixed(3)}`);
+
+	// Difficulties shared by all learners, calibrated from the generator's prior as learners answer.
+	const difficulty = new Map(pool.map((s) => [s.id, priorDifficulty(s.prior)]));
+	const tally = { right: 0, answers: 0 };
+	const ret = { ours: [] as number[], fixed: [] as number[] };
+	let reviewsOurs = 0;
+	let reviewsFixed = 0;
+	let brier = 0;
+	let passes = 0;
+	for (let i = 0; i < LEARNERS; i++) {
+		const zone = ZONES[i % ZONES.length];
+		const make = () => {
+			const r = makeRng(`learner:${seed}:${i}`);
+			return new Learner(r, MODEL.ABILITY_SD * normal(r));
+		};
+		const mine = make();
+		const o = runOurs(pool, mine, zone, `${seed}:${i}`, difficulty, tally);
+		const f = runFixed(pool, make(), `${seed}:${i}`, o.introduced);
+		ret.ours.push(o.retention);
+		ret.fixed.push(f.retention);
+		reviewsOurs += o.reviews;
+		reviewsFixed += f.reviews;
+
+		// Exam day: a mock exam of items unseen for 30 days, our readiness for it, then the simulated result.
+		const examNow = learningDayStart(addDays(START_DAY, DAYS), zone).getTime() + EXAM_OFFSET * 86_400_000;
+		const exam = assembleMockExam({
+			candidates: pool.flatMap((s) => s.variants.map((v) => ({ id: v.id, skillId: s.id, area: s.area }))),
+			weights: WEIGHTS,
+			lastSeen: o.lastSeen,
+			now: examNow,
+			seed: `${seed}:${i}:exam`
+		});
+		const forecast = readiness({ abilities: o.abilities, items: exam.items.map((it) => ({ area: it.area, difficulty: difficulty.get(it.skillId)!.value })) });
+		const rng = makeRng(`${seed}:${i}:exam-answers`);
+		let right = 0;
+		for (const it of exam.items) if (answer(rng, mine, pool.find((s) => s.id === it.skillId)!, it.id, DAYS + EXAM_OFFSET).correct) right++;
+		const passed = right >= forecast.passMark ? 1 : 0;
+		passes += passed;
+		brier += (forecast.probability - passed) ** 2;
+	}
+	const result = {
+		retention_ours: round(mean(ret.ours)),
+		retention_fixed: round(mean(ret.fixed)),
+		reviews_ours: reviewsOurs,
+		reviews_fixed: reviewsFixed,
+		placement_items_ours: placement.ours,
+		placement_items_random: placement.random,
+		practice_accuracy: round(tally.right / tally.answers),
+		readiness_brier: round(brier / LEARNERS)
+	};
+	console.log(`${LEARNERS} learners × ${DAYS} days, ${pool.length} skills × ${VARIANTS_PER_SKILL} variants, ${tally.answers} practice answers, pass rate ${(passes / LEARNERS).toFixed(2)}, ${((performance.now() - started) / 1000).toFixed(1)} s`);
+	const goals = [
+		['retention within 0.01 of fixed or better', result.retention_ours >= result.retention_fixed - 0.01],
+		['at least 25 % fewer reviews', result.reviews_ours <= 0.75 * result.reviews_fixed],
+		['placement needs at least 30 % fewer items', result.placement_items_ours <= 0.7 * result.placement_items_random],
+		['practice accuracy in [0.80, 0.90]', result.practice_accuracy >= 0.8 && result.practice_accuracy <= 0.9],
+		['readiness Brier at most 0.20', result.readiness_brier <= 0.2]
+	] as const;
+	for (const [name, ok] of goals) console.log(`  ${ok ? 'met ' : 'MISS'} ${name}`);
+	console.log(JSON.stringify(result));
+	if (goals.some(([, ok]) => !ok)) process.exitCode = 1;
+}
+
+function round(x: number): number {
+	return Math.round(x * 10000) / 10000;
+}
+
+main();
