@@ -133,7 +133,7 @@ function compileScalar(ctx: CircuitCtx, src: ItemSource, ask: ScalarAsk): Compil
 		const quantity = ask.type as 'volts' | 'amps' | 'watts' | 'drop';
 		return {
 			question: { kind: 'numeric', quantity, unit, tolerance, state: ask.state },
-			key: { kind: 'numeric', value, unit, tolerance, reads },
+			key: { kind: 'numeric', value, unit, tolerance, reads, emf: reads ? (ctx.circuit.states.find((s) => s.name === ask.state)?.supply ?? ctx.circuit.supply.volts) : null },
 			distractors,
 			feedback,
 			keyText: `${keyLabel} (±${tolerance} ${unit})`

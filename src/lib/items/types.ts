@@ -78,7 +78,15 @@ export type QuestionPayload =
 
 /** The key, by kind. */
 export type Key =
-	| { kind: 'numeric'; value: number; unit: 'V' | 'A' | 'W'; tolerance: number; reads: Reads | null }
+	| {
+			kind: 'numeric';
+			value: number;
+			unit: 'V' | 'A' | 'W';
+			tolerance: number;
+			/** For point volts: the point's reading class, and the battery EMF in force it is judged against. */
+			reads: Reads | null;
+			emf: number | null;
+	  }
 	| { kind: 'choose-one'; choice: string; value: Value }
 	| { kind: 'choose-all'; choices: string[] }
 	| { kind: 'select-diagram'; elements: string[] }
