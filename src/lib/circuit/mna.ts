@@ -61,6 +61,8 @@ let rhs = new Float64Array(0);
 let xs = new Float64Array(0);
 let perm = new Int32Array(0);
 let spans: Spans = makeSpans(0);
+/** The structure whose row lists `spans.nz` holds (fill-in appended after each row's own entries). */
+let lastLists: Structure | null = null;
 
 function ensureScratch(n: number): void {
 	if (spans.cap >= n) return;
@@ -70,6 +72,7 @@ function ensureScratch(n: number): void {
 	xs = new Float64Array(cap);
 	perm = new Int32Array(cap);
 	spans = makeSpans(cap);
+	lastLists = null;
 }
 
 /** Allocates the per-solve state for a compiled network. */
@@ -337,7 +340,12 @@ export function solveLinear(net: Net, cfg: Config, w: Work): boolean {
 	ensureScratch(n);
 	A.set(st.baseA);
 	rhs.set(st.baseRhs);
-	spans.nz.set(st.nz);
+	// fill-in only appends to the row lists, so unless rows were swapped the lists of the structure
+	// solved last are restored by their counts alone
+	if (lastLists !== st || spans.swapped) {
+		spans.nz.set(st.nz);
+		lastLists = st;
+	}
 	spans.cnt.set(st.cnt);
 	spans.first.set(st.first);
 	spans.last.set(st.last);

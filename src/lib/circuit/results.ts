@@ -284,12 +284,12 @@ export function buildResult(s: Settled, fault: string | null, needAmps: boolean)
 	const c = net.circuit;
 	const nodes: Record<string, number> = {};
 	for (let i = 0; i < c.fileNodeCount; i++) nodes[c.nodeNames[i]] = roundVolts(w.V[i]);
-	const reach = reachableNodes(s);
+	const reach = c.points.length ? reachableNodes(s) : null;
 	const points: Record<string, { volts: number; reads: Reads }> = {};
 	for (let q = 0; q < c.points.length; q++) {
 		const pt = c.points[q];
 		const i = net.pointNode[q];
-		points[pt.label] = { volts: roundVolts(w.V[i]), reads: readingClass(w.V[i], net.emf, !!reach[i]) };
+		points[pt.label] = { volts: roundVolts(w.V[i]), reads: readingClass(w.V[i], net.emf, !!reach![i]) };
 	}
 	const cur = needAmps ? elementCurrents(s).amps : null;
 	const parts: Record<string, { status: string | null; amps: number }> = {};
