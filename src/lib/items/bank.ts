@@ -23,7 +23,7 @@ export type BuildOptions = {
 	families?: readonly Family[];
 	/** The seed of the generated variants (default `splicepoint`). */
 	seed?: string;
-	/** Variants per family, times each family's weight (default 24). */
+	/** Variants per family, times each family's weight (default 14). */
 	variantsPerFamily?: number;
 	/** A diagram check run on circuit text: returns its problems (empty when the drawing is good). */
 	checkDiagram?: (circuitText: string) => string[];
@@ -100,7 +100,7 @@ export function buildBank(o: BuildOptions): BuildResult {
 
 	const families = o.families ?? FAMILIES;
 	const seed = o.seed ?? 'splicepoint';
-	const per = o.variantsPerFamily ?? 24;
+	const per = o.variantsPerFamily ?? 14;
 	const samples = o.diagramSamples ?? 3;
 	for (const fam of families) {
 		const n = Math.max(1, Math.round(per * (fam.weight ?? 1)));

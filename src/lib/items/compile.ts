@@ -72,23 +72,23 @@ function scalarDistractors(ctx: CircuitCtx, ask: ScalarAsk, keyLabel: string, ke
 	const keyValue = scalarOf(ctx, ask, keyResult);
 	const tol = typeof keyValue === 'number' ? defaultTolerance(ask.type, keyValue) : 0;
 	const values: number[] = typeof keyValue === 'number' ? [keyValue] : [];
-	const add = (tag: string, value: Value) => {
+	const add = (tag: string, value: Value, via?: Distractor['via']) => {
 		const label = formatValue(ask.type, value);
 		if (seen.has(label)) return;
 		// a number within the tolerance of the key or of an earlier distractor would grade as the same answer
 		if (typeof value === 'number' && values.some((v) => Math.abs(v - value) <= tol + 1e-9)) return;
 		seen.add(label);
 		if (typeof value === 'number') values.push(value);
-		out.push({ tag, value, label });
+		out.push(via ? { tag, value, label, via } : { tag, value, label });
 	};
 	for (const v of variantsFor(ctx, ask, keyResult, pointAsk)) {
 		const r = solveCached(ctx, v.where, v.whatIf);
-		if (r) add(v.tag, scalarOf(ctx, { ...ask, ...v.where } as ScalarAsk, r));
+		if (r) add(v.tag, scalarOf(ctx, { ...ask, ...v.where } as ScalarAsk, r), { ...v.where, ...(v.whatIf ? { whatIf: v.whatIf } : {}) });
 	}
 	if (ask.type === 'drop') {
 		const r = keyResult;
 		const pt = ctx.circuit.points.find((p) => p.label === ask.from);
-		add('measured-to-ground', pt ? r.points[ask.from].volts : r.nodes[ask.from]);
+		add('measured-to-ground', pt ? r.points[ask.from].volts : r.nodes[ask.from], { state: ask.state, fault: ask.fault });
 	}
 	return out;
 }
@@ -165,12 +165,13 @@ function compilePath(ctx: CircuitCtx, ask: Extract<Ask, { type: 'path' | 'shared
 	const keyResult = solveCached(ctx, ask)!;
 	const seen = new Set([setKey(key)]);
 	const distractors: Distractor[] = [];
-	const add = (tag: string, els: string[] | null) => {
+	const add = (tag: string, els: string[] | null, via?: Distractor['via']) => {
 		if (!els || els.length === 0 || seen.has(setKey(els))) return;
 		seen.add(setKey(els));
-		distractors.push({ tag, value: els, label: els.join(', ') });
+		distractors.push(via ? { tag, value: els, label: els.join(', '), via } : { tag, value: els, label: els.join(', ') });
 	};
-	for (const v of variantsFor(ctx, ask, keyResult, false)) add(v.tag === 'fault-ignored' ? 'path-without-fault' : v.tag, compute(v.where, v.whatIf));
+	for (const v of variantsFor(ctx, ask, keyResult, false))
+		add(v.tag === 'fault-ignored' ? 'path-without-fault' : v.tag, compute(v.where, v.whatIf), { ...v.where, ...(v.whatIf ? { whatIf: v.whatIf } : {}) });
 	if (ask.type === 'shared') add('whole-path-not-shared', pathCached(ctx, ask.through[0], ask));
 	return {
 		question: { kind: 'select-diagram', selectable, state: ask.state },
@@ -274,7 +275,7 @@ function compileWorks(ctx: CircuitCtx, ask: Extract<Ask, { type: 'works' }>): Co
 		const m = statuses(vr);
 		if (seen.has(stableJson(m))) continue;
 		seen.add(stableJson(m));
-		distractors.push({ tag: v.tag, value: m, label: ask.loads.map((l) => `${l} ${m[l]}`).join(', ') });
+		distractors.push({ tag: v.tag, value: m, label: ask.loads.map((l) => `${l} ${m[l]}`).join(', '), via: { ...v.where, ...(v.whatIf ? { whatIf: v.whatIf } : {}) } });
 	}
 	return {
 		question: { kind: 'predict-works', loads: ask.loads, statuses: ['on', 'weak', 'off'], state: ask.state },
@@ -453,6 +454,7 @@ export function compileItem(ctx: CircuitCtx, src: ItemSource): BuiltItem {
 		circuitRef: src.circuitRef,
 		stemHtml: renderMarkdown(src.stem),
 		explanationHtml: renderMarkdown(explanation),
+		ask: src.ask,
 		question: comp.question,
 		key: comp.key,
 		distractors: comp.distractors,

@@ -2,7 +2,7 @@
  * Types of the item bank: what an author or a generator writes (`ItemSource`), what the build makes
  * of it (`BuiltItem`), and what a learner sends back (`Response`).
  */
-import type { Reads } from '../circuit';
+import type { Reads, WhatIf } from '../circuit';
 
 /** The seven item kinds. */
 export const KINDS = ['numeric', 'choose-one', 'choose-all', 'select-diagram', 'predict-works', 'claim-check', 'next-test'] as const;
@@ -60,8 +60,8 @@ export type ItemSource = {
 	lines?: Record<string, number>;
 };
 
-/** A wrong answer and the mistake it models. */
-export type Distractor = { tag: string; value: unknown; label: string };
+/** A wrong answer and the mistake it models; `via` is the engine solve it came from (absent for set-based ones). */
+export type Distractor = { tag: string; value: unknown; label: string; via?: { state: string | null; fault: string | null; whatIf?: WhatIf } };
 
 /** One option of a choose-one or choose-all item. */
 export type Option = { id: string; label: string };
@@ -130,6 +130,8 @@ export type BuiltItem = {
 	circuitRef: string;
 	stemHtml: string;
 	explanationHtml: string;
+	/** What was asked of the engine (server side only, like the key). */
+	ask: Ask;
 	question: QuestionPayload;
 	key: Key;
 	distractors: Distractor[];

@@ -134,8 +134,8 @@ const DRAFTS: Record<FormId, (x: Ctx) => Draft[]> = {
 	'point-reads': (x) =>
 		SPREAD(x.rng, x.variant).flatMap((w) =>
 			x.rng.shuffle(labelled(x.ctx)).slice(0, 2).map((p) => ({
-				ask: { type: 'reads', point: p, ...w } as Ask,
-				stem: `${x.variant.title} ${whereWords(x.ctx, x.variant, w)}, what does a digital meter show from point **${p}** to ground?`,
+				ask: { type: 'volts', point: p, ...w } as Ask,
+				stem: `${x.variant.title} ${whereWords(x.ctx, x.variant, w)}, which reading does a digital meter show from point **${p}** to ground?`,
 				explanation: `Point ${p} reads {{key}}. {{why}}.`,
 				area: 'meters-basics',
 				skill: 'reading-classes'
