@@ -23,3 +23,4 @@ export {
 export type { OverlaySet, RenderOptions } from './render-svg';
 export { readDiagramCircuit, readLayoutHints, toDiagramCircuit, LayoutHintError } from './from-circuit';
 export type { GalleryCircuit, GalleryState } from './gallery';
+export { checkDrawing } from './geometry';

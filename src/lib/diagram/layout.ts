@@ -796,7 +796,7 @@ function layoutOnce(c: DiagramCircuit, opts: LayoutOptions, gap: number): Drawin
 		}
 		if (!anchor) continue;
 		let best = null as { box: Box; score: number } | null;
-		for (const dist of [16, 24, 34, 46, 60]) {
+		for (const dist of [16, 24, 34, 46, 60, 80, 100]) {
 			for (const [ux, uy] of [
 				[-1, -0.6],
 				[1, -0.6],
@@ -816,7 +816,14 @@ function layoutOnce(c: DiagramCircuit, opts: LayoutOptions, gap: number): Drawin
 			}
 			if (best && best.score < 1000) break;
 		}
-		if (!best) continue;
+		if (!best) {
+			// Nowhere free near the pin: put the flag in the right margin, level with its pin, and widen the drawing.
+			const cy = Math.min(Math.max(anchor[1], R + 2), height - R - 2);
+			let x = width + 6;
+			while (placedLabels.some((o) => boxOverlap(o, { x, y: cy - R, w: 2 * HW, h: 2 * R }, 1))) x += 2 * HW + 6;
+			best = { box: { x, y: cy - R, w: 2 * HW, h: 2 * R }, score: 0 };
+			width = Math.max(width, snapUp(x + 2 * HW + MARGIN));
+		}
 		const box: DrawnLabel = { ...best.box, lines: [label], kind: 'flag', owner: label };
 		placedLabels.push(box);
 		flags.push({ label, node: nodeOfKey(key), target, anchor, cx: best.box.x + HW, cy: best.box.y + R, r: R, hw: HW, box });
