@@ -127,7 +127,8 @@ const faultCache = new WeakMap<Circuit, Map<string, Circuit>>();
 function buildFaulted(c: Circuit, f: Fault, text: string): Circuit {
 	if (c.fault) throw new FaultError(text, `circuit already has fault ${c.fault}; faults apply one at a time`);
 	const nodeNames = c.nodeNames.slice();
-	let elements: NetElement[] = c.elements.map((e) => ({ ...e }));
+	// copy on write: unchanged elements are shared with the circuit given (elements are never mutated)
+	let elements: NetElement[] = c.elements.slice();
 	const deadCoils = c.deadCoils.slice();
 	const openedParts = c.openedParts.slice();
 	const wire = (id: string) => c.wires.find((w) => w.id === id);
@@ -195,25 +196,22 @@ function buildFaulted(c: Circuit, f: Fault, text: string): Circuit {
 		case 'shorted': {
 			if (p && dot < 0 && (LOAD_TYPES.has(p.type) || p.type === 'resistor')) {
 				const pi = c.parts.indexOf(p);
-				for (const e of elements) if (e.part === pi && e.role === 'resistor') e.ohms = SHORT_OHMS;
+				elements = elements.map((e) => (e.part === pi && e.role === 'resistor' ? { ...e, ohms: SHORT_OHMS } : e));
 			} else if (p && p.type === 'relay' && sub === 'coil') {
 				const pi = c.parts.indexOf(p);
-				for (const e of elements)
-					if (e.part === pi && e.role === 'coil') {
-						e.ohms = SHORT_OHMS;
-						e.dead = true;
-					}
+				elements = elements.map((e) => (e.part === pi && e.role === 'coil' ? { ...e, ohms: SHORT_OHMS, dead: true } : e));
 			} else if (p || wire(f.target)) fail(`shorted applies to a load, a resistor or a relay coil (K1.coil), not ${f.target}`);
 			else fail(`unknown fault target "${f.target}"; name a load, a resistor or a relay coil such as K1.coil`);
 			break;
 		}
 		case 'stuck-closed': {
 			if (p && dot < 0 && p.type === 'switch' && !p.positions) {
-				for (const e of elements) if (e.part === c.parts.indexOf(p) && e.role === 'switch') e.stuck = true;
+				const pi = c.parts.indexOf(p);
+				elements = elements.map((e) => (e.part === pi && e.role === 'switch' ? { ...e, stuck: true } : e));
 			} else if (p && dot < 0 && p.type === 'relay') {
 				const pi = c.parts.indexOf(p);
 				elements = elements.filter((e) => !(e.part === pi && e.role === 'nc'));
-				for (const e of elements) if (e.part === pi && e.role === 'no') e.stuck = true;
+				elements = elements.map((e) => (e.part === pi && e.role === 'no' ? { ...e, stuck: true } : e));
 			} else if (p || wire(f.target)) fail(`stuck-closed applies to a single-throw switch or a relay, not ${f.target}`);
 			else fail(`unknown fault target "${f.target}"; name a single-throw switch or a relay`);
 			break;
@@ -243,18 +241,10 @@ function buildFaulted(c: Circuit, f: Fault, text: string): Circuit {
 				elements.push(faultEl(m1, m2, ohms));
 			} else if (p && dot < 0 && p.type === 'ground') {
 				const pi = c.parts.indexOf(p);
-				for (const e of elements)
-					if (e.part === pi) {
-						e.ohms += ohms;
-						e.role = 'resistor';
-					}
+				elements = elements.map((e) => (e.part === pi ? { ...e, ohms: e.ohms + ohms, role: 'resistor' as const } : e));
 			} else if (p && p.type === 'connector' && dot >= 0) {
 				if (!cavityOk) fail(`${p.id} has no cavity "${sub}"; its cavities are 1 to ${p.cavities}`);
-				for (const e of elements)
-					if (e.id === f.target) {
-						e.ohms = ohms;
-						e.role = 'resistor';
-					}
+				elements = elements.map((e) => (e.id === f.target ? { ...e, ohms, role: 'resistor' as const } : e));
 			} else if (p) fail(`high-resistance applies to a wire, a ground or a connector cavity, not ${f.target}`);
 			else fail(`unknown fault target "${f.target}"; name a wire, a ground or a cavity like C1.3`);
 			break;

@@ -31,8 +31,9 @@ type Structure = {
 	n: number;
 	baseA: Float64Array;
 	baseRhs: Float64Array;
-	nz: Int32Array;
-	cnt: Int32Array;
+	/** Nonzero columns of row k: cols[nzStart[k]] .. cols[nzStart[k + 1] - 1]. */
+	cols: Int32Array;
+	nzStart: Int32Array;
 	first: Int32Array;
 	last: Int32Array;
 };
@@ -153,7 +154,7 @@ function buildStructure(net: Net, cfg: Config): Structure {
 	const rowOfSrc = new Int32Array(ne).fill(-1);
 	const empty = new Float64Array(0);
 	const none = new Int32Array(0);
-	const s0: Structure = { dead: -1, parent, root, gOf, fixedV, srcOn, rowOfSrc, nv: 0, n: 0, baseA: empty, baseRhs: empty, nz: none, cnt: none, first: none, last: none };
+	const s0: Structure = { dead: -1, parent, root, gOf, fixedV, srcOn, rowOfSrc, nv: 0, n: 0, baseA: empty, baseRhs: empty, cols: none, nzStart: none, first: none, last: none };
 	// sources: weighted union-find over merged nodes; a loop of sources and 0 Ω elements is a dead short
 	const srcs = net.sources;
 	for (let s = 0; s < srcs.length; s++) {
@@ -189,46 +190,60 @@ function buildStructure(net: Net, cfg: Config): Structure {
 		}
 	}
 	const nv = groups.length;
-	const adj: number[][] = groups.map(() => []);
+	// adjacency of the unknown merged nodes through conducting elements (compressed rows)
+	const deg = new Int32Array(nv + 1);
 	for (let i = 0; i < ne; i++) {
 		if (!conductive(code[i])) continue;
 		const ta = tmp[root[ea[i]]];
 		const tb = tmp[root[eb[i]]];
 		if (ta >= 0 && tb >= 0 && ta !== tb) {
-			adj[ta].push(tb);
-			adj[tb].push(ta);
+			deg[ta + 1]++;
+			deg[tb + 1]++;
 		}
 	}
-	const deg = Int32Array.from(adj, (l) => l.length);
+	for (let t = 0; t < nv; t++) deg[t + 1] += deg[t];
+	const adj = new Int32Array(deg[nv]);
+	const fillAt = deg.slice(0, nv);
+	for (let i = 0; i < ne; i++) {
+		if (!conductive(code[i])) continue;
+		const ta = tmp[root[ea[i]]];
+		const tb = tmp[root[eb[i]]];
+		if (ta >= 0 && tb >= 0 && ta !== tb) {
+			adj[fillAt[ta]++] = tb;
+			adj[fillAt[tb]++] = ta;
+		}
+	}
+	// number leaves first (then the least connected), so that elimination makes little fill-in
+	const left = new Int32Array(nv);
+	for (let t = 0; t < nv; t++) left[t] = deg[t + 1] - deg[t];
 	const placed = new Uint8Array(nv);
-	const stack: number[] = [];
-	for (let t = nv - 1; t >= 0; t--) if (deg[t] <= 1) stack.push(t);
+	const stack = new Int32Array(nv + adj.length);
+	let sp = 0;
+	for (let t = nv - 1; t >= 0; t--) if (left[t] <= 1) stack[sp++] = t;
 	let next = 0;
 	while (next < nv) {
 		let t = -1;
-		while (stack.length) {
-			const c = stack.pop()!;
+		while (sp > 0) {
+			const c = stack[--sp];
 			if (!placed[c]) {
 				t = c;
 				break;
 			}
 		}
 		if (t < 0) {
-			// no leaf left: the unplaced node of least degree
 			let best = Infinity;
 			for (let c = 0; c < nv; c++)
-				if (!placed[c] && deg[c] < best) {
-					best = deg[c];
+				if (!placed[c] && left[c] < best) {
+					best = left[c];
 					t = c;
 				}
 		}
 		placed[t] = 1;
 		gOf[groups[t]] = next++;
-		for (const u of adj[t])
-			if (!placed[u]) {
-				deg[u]--;
-				if (deg[u] <= 1) stack.push(u);
-			}
+		for (let q = deg[t]; q < deg[t + 1]; q++) {
+			const u = adj[q];
+			if (!placed[u] && --left[u] <= 1) stack[sp++] = u;
+		}
 	}
 	let ns = 0;
 	for (let s = 0; s < srcs.length; s++) {
@@ -236,48 +251,63 @@ function buildStructure(net: Net, cfg: Config): Structure {
 		if (srcOn[e] && gOf[root[ea[e]]] >= 0) rowOfSrc[e] = nv + ns++;
 	}
 	const n = nv + ns;
-	const baseA = new Float64Array(n * n);
-	const baseRhs = new Float64Array(n);
-	const nz = new Int32Array(n * n);
-	const cnt = new Int32Array(n);
-	const first = new Int32Array(n);
-	const last = new Int32Array(n);
-	const mark = new Uint8Array(n * n);
-	const touch = (r: number, c: number) => {
-		if (mark[r * n + c]) return;
-		mark[r * n + c] = 1;
-		nz[r * n + cnt[r]++] = c;
-		if (c < first[r]) first[r] = c;
-		if (c > last[r]) last[r] = c;
-	};
-	for (let k = 0; k < n; k++) {
-		first[k] = last[k] = k;
-		touch(k, k);
-	}
-	const st: Structure = { dead: -1, parent, root, gOf, fixedV, srcOn, rowOfSrc, nv, n, baseA, baseRhs, nz, cnt, first, last };
+	// nonzero pattern by rows: the diagonal, conducting neighbours, source rows and columns
+	const rowLen = new Int32Array(n + 1);
+	const pairs: number[] = [];
+	for (let k = 0; k < n; k++) pairs.push(k, k);
 	for (let i = 0; i < ne; i++) {
 		const c = code[i];
 		if (conductive(c)) {
 			const ia = gOf[root[ea[i]]];
 			const ib = gOf[root[eb[i]]];
-			if (ia >= 0 && ib >= 0 && ia !== ib) {
-				touch(ia, ib);
-				touch(ib, ia);
-			}
-			if (c === Code.Resistor || c === Code.Coil) stampInto(st, baseA, baseRhs, n, ea[i], eb[i], net.g[i], 0);
+			if (ia >= 0 && ib >= 0 && ia !== ib) pairs.push(ia, ib, ib, ia);
 		} else if (c === Code.Source && rowOfSrc[i] >= 0) {
+			const k = rowOfSrc[i];
+			const ip = gOf[root[ea[i]]];
+			const im = gOf[root[eb[i]]];
+			pairs.push(ip, k, k, ip);
+			if (im >= 0) pairs.push(im, k, k, im);
+		}
+	}
+	for (let q = 0; q < pairs.length; q += 2) rowLen[pairs[q] + 1]++;
+	for (let k = 0; k < n; k++) rowLen[k + 1] += rowLen[k];
+	const cols = new Int32Array(rowLen[n]);
+	const put = rowLen.slice(0, n);
+	for (let q = 0; q < pairs.length; q += 2) cols[put[pairs[q]]++] = pairs[q + 1];
+	// drop repeated columns within each row
+	const nzStart = new Int32Array(n + 1);
+	const stamp = new Int32Array(n).fill(-1);
+	let w = 0;
+	const first = new Int32Array(n);
+	const last = new Int32Array(n);
+	for (let k = 0; k < n; k++) {
+		nzStart[k] = w;
+		first[k] = last[k] = k;
+		for (let q = rowLen[k]; q < put[k]; q++) {
+			const j = cols[q];
+			if (stamp[j] === k) continue;
+			stamp[j] = k;
+			cols[w++] = j;
+			if (j < first[k]) first[k] = j;
+			if (j > last[k]) last[k] = j;
+		}
+	}
+	nzStart[n] = w;
+	const baseA = new Float64Array(n * n);
+	const baseRhs = new Float64Array(n);
+	const st: Structure = { dead: -1, parent, root, gOf, fixedV, srcOn, rowOfSrc, nv, n, baseA, baseRhs, cols: cols.slice(0, w), nzStart, first, last };
+	for (let i = 0; i < ne; i++) {
+		const c = code[i];
+		if (c === Code.Resistor || c === Code.Coil) stampInto(st, baseA, baseRhs, n, ea[i], eb[i], net.g[i], 0);
+		else if (c === Code.Source && rowOfSrc[i] >= 0) {
 			const k = rowOfSrc[i];
 			const ip = gOf[root[ea[i]]];
 			const im = gOf[root[eb[i]]];
 			baseA[ip * n + k] += 1;
 			baseA[k * n + ip] += 1;
-			touch(ip, k);
-			touch(k, ip);
 			if (im >= 0) {
 				baseA[im * n + k] -= 1;
 				baseA[k * n + im] -= 1;
-				touch(im, k);
-				touch(k, im);
 			}
 			baseRhs[k] = net.ev[i];
 		}
@@ -343,10 +373,15 @@ export function solveLinear(net: Net, cfg: Config, w: Work): boolean {
 	// fill-in only appends to the row lists, so unless rows were swapped the lists of the structure
 	// solved last are restored by their counts alone
 	if (lastLists !== st || spans.swapped) {
-		spans.nz.set(st.nz);
+		const nz = spans.nz;
+		for (let k = 0; k < n; k++) {
+			const r = k * n;
+			let q = 0;
+			for (let p = st.nzStart[k]; p < st.nzStart[k + 1]; p++) nz[r + q++] = st.cols[p];
+		}
 		lastLists = st;
 	}
-	spans.cnt.set(st.cnt);
+	for (let k = 0; k < n; k++) spans.cnt[k] = st.nzStart[k + 1] - st.nzStart[k];
 	spans.first.set(st.first);
 	spans.last.set(st.last);
 	const ea = net.ea;

@@ -60,8 +60,6 @@ export type Net = {
 	sources: Int32Array;
 	lampEl: number;
 	lampOhms: number;
-	/** Nodes in elimination order: farthest from GND and B+ first (reverse breadth-first), which keeps LU fill-in small on tree-like wiring. */
-	order: Int32Array;
 	/** Node index of each labelled point, in file order. */
 	pointNode: Int32Array;
 	/** Element indices of each part, in file order. */
@@ -138,7 +136,22 @@ export function compileNet(c: Circuit, state: string | null | undefined, lamp: s
 /** Compiled networks by circuit, then by state and lamp. A Net is never changed after it is built. */
 const netCache = new WeakMap<Circuit, Map<string, Net>>();
 
+/** Node name -> index for the file's own nodes (shared by a circuit and its faulted versions). */
+const fileNodeIndex = new WeakMap<readonly string[], Map<string, number>>();
+
+function nodeIndexOf(c: Circuit): Map<string, number> {
+	const key = c.parts as readonly unknown[] as readonly string[];
+	let m = fileNodeIndex.get(key);
+	if (!m) {
+		m = new Map();
+		for (let i = 0; i < c.fileNodeCount; i++) m.set(c.nodeNames[i], i);
+		fileNodeIndex.set(key, m);
+	}
+	return m;
+}
+
 function buildNet(c: Circuit, state: string | null | undefined, lamp: string | null | undefined): Net {
+	const nodeIdx = nodeIndexOf(c);
 	const st = state == null ? null : c.states.find((s) => s.name === state);
 	if (st === undefined)
 		throw new SolveOptionError('state', `unknown state "${state}"; this circuit's states are ${c.states.map((s) => s.name).join(', ') || 'none'}`);
@@ -238,8 +251,8 @@ function buildNet(c: Circuit, state: string | null | undefined, lamp: string | n
 	const dropOutMv = new Int32Array(nr);
 	for (let r = 0; r < nr; r++) {
 		const p = c.parts[relayPart[r]];
-		relay85[r] = c.nodeNames.indexOf(`${p.id}.85`);
-		relay86[r] = c.nodeNames.indexOf(`${p.id}.86`);
+		relay85[r] = nodeIdx.get(`${p.id}.85`)!;
+		relay86[r] = nodeIdx.get(`${p.id}.86`)!;
 		pullInMv[r] = Math.round(p.pullIn! * 1000);
 		dropOutMv[r] = Math.round(p.dropOut! * 1000);
 		relayDead[r] = c.deadCoils.includes(p.id) ? 1 : 0;
@@ -261,7 +274,7 @@ function buildNet(c: Circuit, state: string | null | undefined, lamp: string | n
 	const metered = new Uint8Array(nNodes);
 	for (let i = 0; i < nNodes; i++) {
 		const n = c.nodeNames[i];
-		metered[i] = i !== 1 && !n.endsWith('#int') && !n.endsWith('#emf') ? 1 : 0;
+		metered[i] = i !== 1 && !(i >= c.fileNodeCount && (n.endsWith('#int') || n.endsWith('#emf'))) ? 1 : 0;
 	}
 	// internal nodes that no element touches (a removed diode's midpoint) stay out of the matrix
 	const dormant = new Uint8Array(nNodes);
@@ -276,8 +289,7 @@ function buildNet(c: Circuit, state: string | null | undefined, lamp: string | n
 		const p = c.parts[els[ei].part];
 		fuseRating[k] = FUSE_TYPES.has(p.type) ? p.rating! : Infinity;
 	});
-	const order = eliminationOrder(nNodes, ea, eb);
-	const pointNode = Int32Array.from(c.points.map((p) => c.nodeNames.indexOf(p.node)));
+	const pointNode = Int32Array.from(c.points.map((p) => nodeIdx.get(p.node)!));
 	const partEls: number[][] = c.parts.map(() => []);
 	for (let i = 0; i < ne; i++) if (els[i].part >= 0) partEls[els[i].part].push(i);
 	const fuseSlot = new Int32Array(ne).fill(-1);
@@ -295,7 +307,6 @@ function buildNet(c: Circuit, state: string | null | undefined, lamp: string | n
 	return {
 		partKind,
 		seriesOfSource,
-		order,
 		pointNode,
 		partEls,
 		fuseSlot,
@@ -333,38 +344,4 @@ function buildNet(c: Circuit, state: string | null | undefined, lamp: string | n
 		lampEl,
 		lampOhms
 	};
-}
-
-/** Reverse breadth-first order from B+ and GND over every element; nodes not reached come first. */
-function eliminationOrder(nNodes: number, ea: Int32Array, eb: Int32Array): Int32Array {
-	const deg = new Int32Array(nNodes + 1);
-	for (let i = 0; i < ea.length; i++) {
-		deg[ea[i] + 1]++;
-		deg[eb[i] + 1]++;
-	}
-	for (let i = 0; i < nNodes; i++) deg[i + 1] += deg[i];
-	const adj = new Int32Array(deg[nNodes]);
-	const fill = deg.slice(0, nNodes);
-	for (let i = 0; i < ea.length; i++) {
-		adj[fill[ea[i]]++] = eb[i];
-		adj[fill[eb[i]]++] = ea[i];
-	}
-	const seen = new Uint8Array(nNodes);
-	const bfs: number[] = [1, 0];
-	seen[0] = seen[1] = 1;
-	for (let h = 0; h < bfs.length; h++) {
-		const u = bfs[h];
-		for (let k = deg[u]; k < deg[u + 1]; k++) {
-			const v = adj[k];
-			if (!seen[v]) {
-				seen[v] = 1;
-				bfs.push(v);
-			}
-		}
-	}
-	const out = new Int32Array(nNodes);
-	let q = 0;
-	for (let i = 0; i < nNodes; i++) if (!seen[i]) out[q++] = i;
-	for (let h = bfs.length - 1; h >= 0; h--) out[q++] = bfs[h];
-	return out;
 }
