@@ -4,6 +4,9 @@
 // Adding a route? Add its entries here (see DEVELOPERS.md, "Adding a route").
 import type { Role } from '../src/lib/server/auth/roles';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../src/lib/server/seed/demo';
+import { BANK_ROUTES } from './authz-matrix-bank';
+import { DIAGRAM_ROUTES } from './authz-matrix-diagram';
+import { LEARNING_ROUTES } from './authz-matrix-learning';
 
 export type Visitor = 'anonymous' | Role;
 
@@ -99,5 +102,9 @@ export const MATRIX: MatrixEntry[] = [
 		outcome: { redirect: '/admin/users' }
 	},
 	{ kind: 'endpoint', route: '/api/health', method: 'GET', allow: 'anyone' },
-	{ kind: 'endpoint', route: '/api/me', method: 'GET', allow: 'signed-in' }
+	{ kind: 'endpoint', route: '/api/me', method: 'GET', allow: 'signed-in' },
+	// Each area keeps its routes in a file of its own, so that engineers adding routes do not collide.
+	...DIAGRAM_ROUTES,
+	...BANK_ROUTES,
+	...LEARNING_ROUTES
 ];

@@ -1,0 +1,4 @@
+// Authorization matrix entries for circuit diagrams: the gallery. Part of tests/authz-matrix.ts; same rules.
+import type { MatrixEntry } from './authz-matrix';
+
+export const DIAGRAM_ROUTES: MatrixEntry[] = [];
