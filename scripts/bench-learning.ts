@@ -18,6 +18,7 @@
 import {
 	addDays,
 	assembleMockExam,
+	calibrateMemoryFactor,
 	composeDailySet,
 	learningDayStart,
 	makeRng,
@@ -32,6 +33,7 @@ import {
 	type Estimate,
 	type PlacementCandidate,
 	type PlacementResponse,
+	type ReviewRecord,
 	type Rng,
 	type SkillInfo,
 	type StoredCard
@@ -65,8 +67,12 @@ const MODEL = {
 };
 
 /** Our parameters for the run (the only ones tuned). */
-const OURS = { maxItems: 40, maxMinutes: 30, maxNew: 4 };
+const OURS = { maxItems: 40, maxMinutes: 30, maxNew: 4, ...JSON.parse(process.env.BENCH_OURS ?? '{}') };
+/** Overrides of the scheduler's retention settings for tuning runs (defaults: those of schedule.ts). */
+const RETENTION = { ...JSON.parse(process.env.BENCH_RETENTION ?? '{}') };
 
+/** BENCH_CALIBRATE=1 turns on the per-learner memory factor (off: it did not help on this model, docs/learning.md). */
+const CALIBRATE = process.env.BENCH_CALIBRATE === '1';
 const LEARNERS = Number(process.env.BENCH_LEARNERS ?? 300);
 const DAYS = 60;
 const AREAS = ['meters', 'diagrams', 'distribution', 'starting', 'charging', 'lighting', 'body', 'sensors', 'strategy'];
@@ -208,9 +214,10 @@ function placementComparison(pool: PoolSkill[], seed: number): { ours: number; r
 }
 
 // ---------------------------------------------------------------- 60 days
+type Tally = { right: number; answers: number; byKind: Record<'review' | 'new', { n: number; right: number; predicted: number; recall: number; ceiling: number }> };
 type ArmResult = { retention: number; reviews: number; introduced: Map<string, number> };
 
-function runOurs(pool: PoolSkill[], learner: Learner, zone: string, seed: string, difficulty: Map<string, Estimate>, tally: { right: number; answers: number }) {
+function runOurs(pool: PoolSkill[], learner: Learner, zone: string, seed: string, difficulty: Map<string, Estimate>, tally: Tally) {
 	const rng = makeRng(`${seed}:answers`);
 	const examDate = addDays(START_DAY, DAYS);
 	const cards: Record<string, StoredCard> = {};
@@ -218,6 +225,8 @@ function runOurs(pool: PoolSkill[], learner: Learner, zone: string, seed: string
 	const lastSeen: Record<string, number> = {};
 	const introduced = new Map<string, number>();
 	let reviews = 0;
+	const history: ReviewRecord[] = [];
+	let memoryFactor = 1;
 
 	// Day 0: placement (no feedback, so no study), then abilities per area.
 	const responses: PlacementResponse[] = [];
@@ -233,29 +242,42 @@ function runOurs(pool: PoolSkill[], learner: Learner, zone: string, seed: string
 
 	for (let day = 1; day < DAYS; day++) {
 		const now = sessionInstant(day, zone);
-		const skills: SkillInfo[] = pool.map((s) => ({ id: s.id, area: s.area, difficulty: difficulty.get(s.id)!.value, variants: s.variants.map((v) => ({ id: v.id, medianSeconds: MEDIAN_SECONDS })) }));
-		const set = composeDailySet({ now, timeZone: zone, skills, cards, lastVariant, abilities, settings: OURS, seed: `${seed}:${day}` });
+		if (CALIBRATE && day % 7 === 0) memoryFactor = calibrateMemoryFactor(history);
+		const skills: SkillInfo[] = pool.map((s) => ({ id: s.id, area: s.area, difficulty: difficulty.get(s.id)!.value, guess: s.choice ? MODEL.GUESS : 0, variants: s.variants.map((v) => ({ id: v.id, medianSeconds: MEDIAN_SECONDS })) }));
+		const set = composeDailySet({ now, timeZone: zone, skills, cards, lastVariant, abilities, examDate, settings: OURS, seed: `${seed}:${day}` });
 		for (const item of set.items) {
 			const skill = pool.find((s) => s.id === item.skillId)!;
 			const t = day + SESSION_OFFSET;
+			const trueRecall = learner.recall(skill, t);
+			const v = skill.variants.find((x) => x.id === item.itemId)!;
+			tally.byKind[item.kind].recall += trueRecall ?? 1;
+			tally.byKind[item.kind].ceiling += sigma(learner.ability[skill.area] - v.trueDifficulty + (trueRecall == null ? 0 : MODEL.LEARNING_GAIN));
 			const out = answer(rng, learner, skill, item.itemId, t);
 			tally.answers++;
 			if (out.correct) tally.right++;
+			const k = tally.byKind[item.kind];
+			k.n++;
+			k.right += out.correct ? 1 : 0;
+			k.predicted += item.predictedSuccess;
 			if (item.kind === 'review') reviews++;
 			else introduced.set(skill.id, day);
 			learner.study(skill, t, out.correct, pool);
 			const rating = rateAnswer({ correct: out.correct, seconds: out.seconds, medianSeconds: MEDIAN_SECONDS });
-			cards[skill.id] = scheduleReview(cards[skill.id] ?? null, rating, now, { timeZone: zone, examDate }).card;
+			const before = cards[skill.id];
+			if (before?.last_review) history.push({ elapsedDays: (now - Date.parse(before.last_review)) / 86_400_000, stability: before.stability, correct: out.correct, guess: skill.choice ? MODEL.GUESS : 0 });
+			cards[skill.id] = scheduleReview(before ?? null, rating, now, { timeZone: zone, examDate, memoryFactor, ...RETENTION }).card;
 			lastVariant[skill.id] = item.itemId;
 			lastSeen[item.itemId] = now;
 			const a = abilities[skill.area];
 			const d = difficulty.get(skill.id)!;
-			abilities[skill.area] = updateAbility(a, d.value, out.correct);
-			difficulty.set(skill.id, updateDifficulty(d, a.value, out.correct));
+			const g = skill.choice ? MODEL.GUESS : 0;
+			abilities[skill.area] = updateAbility(a, d.value, out.correct, g);
+			difficulty.set(skill.id, updateDifficulty(d, a.value, out.correct, g));
 		}
 	}
 	const examT = DAYS + EXAM_OFFSET;
 	const retention = mean([...introduced.keys()].map((id) => learner.recall(pool.find((s) => s.id === id)!, examT)!));
+	if (process.env.BENCH_DEBUG) console.log('ours', [...introduced.keys()].map((id) => `${(examT - learner.lastStudy.get(id)!).toFixed(1)}/${learner.strength.get(id)!.toFixed(1)}`).join(' '), 'm', memoryFactor.toFixed(2));
 	return { retention, reviews, introduced, abilities, lastSeen };
 }
 
@@ -274,6 +296,7 @@ function runFixed(pool: PoolSkill[], learner: Learner, seed: string, introduced:
 		}
 	}
 	const examT = DAYS + EXAM_OFFSET;
+	if (process.env.BENCH_DEBUG) console.log('fixed', [...introduced.keys()].map((id) => `${(examT - learner.lastStudy.get(id)!).toFixed(1)}/${learner.strength.get(id)!.toFixed(1)}`).join(' '));
 	return { retention: mean([...introduced.keys()].map((id) => learner.recall(pool.find((s) => s.id === id)!, examT)!)), reviews, introduced };
 }
 
@@ -292,7 +315,7 @@ function main() {
 
 	// Difficulties shared by all learners, calibrated from the generator's prior as learners answer.
 	const difficulty = new Map(pool.map((s) => [s.id, priorDifficulty(s.prior)]));
-	const tally = { right: 0, answers: 0 };
+	const tally: Tally = { right: 0, answers: 0, byKind: { review: { n: 0, right: 0, predicted: 0, recall: 0, ceiling: 0 }, new: { n: 0, right: 0, predicted: 0, recall: 0, ceiling: 0 } } };
 	const ret = { ours: [] as number[], fixed: [] as number[] };
 	let reviewsOurs = 0;
 	let reviewsFixed = 0;
@@ -321,7 +344,7 @@ function main() {
 			now: examNow,
 			seed: `${seed}:${i}:exam`
 		});
-		const forecast = readiness({ abilities: o.abilities, items: exam.items.map((it) => ({ area: it.area, difficulty: difficulty.get(it.skillId)!.value })) });
+		const forecast = readiness({ abilities: o.abilities, items: exam.items.map((it) => ({ area: it.area, difficulty: difficulty.get(it.skillId)!.value, guess: pool.find((s) => s.id === it.skillId)!.choice ? MODEL.GUESS : 0 })) });
 		const rng = makeRng(`${seed}:${i}:exam-answers`);
 		let right = 0;
 		for (const it of exam.items) if (answer(rng, mine, pool.find((s) => s.id === it.skillId)!, it.id, DAYS + EXAM_OFFSET).correct) right++;
@@ -340,6 +363,10 @@ function main() {
 		readiness_brier: round(brier / LEARNERS)
 	};
 	console.log(`${LEARNERS} learners × ${DAYS} days, ${pool.length} skills × ${VARIANTS_PER_SKILL} variants, ${tally.answers} practice answers, pass rate ${(passes / LEARNERS).toFixed(2)}, ${((performance.now() - started) / 1000).toFixed(1)} s`);
+	for (const kind of ['new', 'review'] as const) {
+		const k = tally.byKind[kind];
+		console.log(`  ${kind}: ${k.n} answers, ${(k.right / k.n).toFixed(3)} right, ${(k.predicted / k.n).toFixed(3)} predicted (Rasch); simulated: recall ${(k.recall / k.n).toFixed(3)}, Rasch chance ${(k.ceiling / k.n).toFixed(3)}`);
+	}
 	const goals = [
 		['retention within 0.01 of fixed or better', result.retention_ours >= result.retention_fixed - 0.01],
 		['at least 25 % fewer reviews', result.reviews_ours <= 0.75 * result.reviews_fixed],

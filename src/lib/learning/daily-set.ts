@@ -3,13 +3,14 @@
  * learner's weakest content area at a difficulty where the predicted success is 80–85 %.
  */
 import { makeRng, type Rng } from './rng';
-import { abilityOf, pSuccess, type Estimate } from './rasch';
-import { learningDay, daysBetween, toMs } from './learning-day';
+import { abilityOf, pWithGuess, type Estimate } from './rasch';
+import { checkDay, daysBetween, learningDay, toMs } from './learning-day';
 import { predictedRetention, type StoredCard } from './schedule';
 
 export type Variant = { id: string; medianSeconds?: number | null };
 /** A skill as the set sees it: its area, its calibrated difficulty (shared by its variants), its variants. */
-export type SkillInfo = { id: string; area: string; difficulty: number; variants: readonly Variant[] };
+/** `guess`: the chance of guessing one of its items right (1 / options for choice items; 0 or absent otherwise). */
+export type SkillInfo = { id: string; area: string; difficulty: number; guess?: number; variants: readonly Variant[] };
 
 export type DailySettings = {
 	maxItems: number;
@@ -20,9 +21,11 @@ export type DailySettings = {
 	band: readonly [number, number];
 	/** A new skill predicted below this is held back for another day (too hard yet). */
 	newFloor: number;
+	/** No new skills within this many days of the exam: the last days consolidate. */
+	noNewWithinDays: number;
 };
 
-export const DEFAULT_DAILY: DailySettings = { maxItems: 15, maxMinutes: 10, maxNew: 5, band: [0.8, 0.85], newFloor: 0.6 };
+export const DEFAULT_DAILY: DailySettings = { maxItems: 15, maxMinutes: 10, maxNew: 5, band: [0.8, 0.85], newFloor: 0.75, noNewWithinDays: 7 };
 /** Seconds assumed for an item with no median time yet. */
 export const DEFAULT_SECONDS = 40;
 
@@ -36,6 +39,8 @@ export type DailySetInput = {
 	lastVariant: Readonly<Record<string, string>>;
 	/** Ability per area id; an area without one counts as 0. */
 	abilities: Readonly<Record<string, Estimate | number>>;
+	/** The learner's exam day ('YYYY-MM-DD'), or null. */
+	examDate?: string | null;
 	settings?: Partial<DailySettings>;
 	seed: number | string;
 };
@@ -45,7 +50,7 @@ export type DailyItem = {
 	skillId: string;
 	area: string;
 	kind: 'review' | 'new';
-	/** Rasch probability of a right answer from the area ability and the skill difficulty. */
+	/** Predicted probability of a right answer: Rasch from the area ability and the skill difficulty, with the skill's guessing chance. */
 	predictedSuccess: number;
 	/** FSRS probability of recall now (reviews only). */
 	retention: number | null;
@@ -103,7 +108,7 @@ export function composeDailySet(input: DailySetInput): DailySet {
 			skillId: k.id,
 			area: k.area,
 			kind: 'review',
-			predictedSuccess: pSuccess(ability, k.difficulty),
+			predictedSuccess: pWithGuess(ability, k.difficulty, k.guess ?? 0),
 			retention: predictedRetention(card, (nowMs - lastMs) / 86_400_000),
 			seconds: secondsOf(v),
 			reason: overdue > 0 ? `review due ${overdue} day${overdue === 1 ? '' : 's'} ago` : 'review due today'
@@ -113,17 +118,19 @@ export function composeDailySet(input: DailySetInput): DailySet {
 
 	const unstarted = input.skills.filter((k) => !input.cards[k.id]);
 	const chosen = new Set<string>();
+	const predict = (k: SkillInfo) => pWithGuess(abilityOf(input.abilities, k.area), k.difficulty, k.guess ?? 0);
+	const exam = input.examDate ? checkDay(input.examDate) : null;
+	const closeToExam = exam != null && daysBetween(day, exam) >= 0 && daysBetween(day, exam) <= s.noNewWithinDays;
 	let added = 0;
-	while (added < s.maxNew && items.length < s.maxItems) {
-		const open = unstarted.filter((k) => !chosen.has(k.id) && k.variants.length > 0 && pSuccess(abilityOf(input.abilities, k.area), k.difficulty) >= s.newFloor);
+	while (!closeToExam && added < s.maxNew && items.length < s.maxItems) {
+		const open = unstarted.filter((k) => !chosen.has(k.id) && k.variants.length > 0 && predict(k) >= s.newFloor);
 		if (open.length === 0) break;
 		const areas = [...new Set(open.map((k) => k.area))].sort((a, b) => abilityOf(input.abilities, a) - abilityOf(input.abilities, b) || (a < b ? -1 : 1));
 		const area = areas[0];
-		const ability = abilityOf(input.abilities, area);
 		const centre = (s.band[0] + s.band[1]) / 2;
 		const inArea = open
 			.filter((k) => k.area === area)
-			.map((k) => ({ k, p: pSuccess(ability, k.difficulty) }))
+			.map((k) => ({ k, p: predict(k) }))
 			.sort((a, b) => bandDistance(a.p, s.band) - bandDistance(b.p, s.band) || Math.abs(a.p - centre) - Math.abs(b.p - centre) || (a.k.id < b.k.id ? -1 : 1));
 		const { k, p } = inArea[0];
 		const v = pick(rng, k.variants);

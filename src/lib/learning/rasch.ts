@@ -26,16 +26,17 @@ export function eloStep(count: number): number {
 
 /**
  * One answer: the learner's area ability moves by K(n_a)·(correct − p), the skill's difficulty by
- * −K(n_s)·(correct − p), where p = pSuccess(ability, difficulty) before the answer.
+ * −K(n_s)·(correct − p), where p is the predicted success before the answer: pSuccess(ability,
+ * difficulty), or with a guessing chance g, g + (1 − g)·pSuccess (Pelánek 2016, multiple-choice items).
  */
-export function updateAbility(ability: Estimate, difficulty: number, correct: boolean): Estimate {
-	const p = pSuccess(ability.value, difficulty);
+export function updateAbility(ability: Estimate, difficulty: number, correct: boolean, guess = 0): Estimate {
+	const p = pWithGuess(ability.value, difficulty, guess);
 	return { value: ability.value + eloStep(ability.count) * ((correct ? 1 : 0) - p), count: ability.count + 1 };
 }
 
 /** The skill's side of the same answer (shared by all variants of the skill). */
-export function updateDifficulty(difficulty: Estimate, ability: number, correct: boolean): Estimate {
-	const p = pSuccess(ability, difficulty.value);
+export function updateDifficulty(difficulty: Estimate, ability: number, correct: boolean, guess = 0): Estimate {
+	const p = pWithGuess(ability, difficulty.value, guess);
 	return { value: difficulty.value - eloStep(difficulty.count) * ((correct ? 1 : 0) - p), count: difficulty.count + 1 };
 }
 

@@ -3,7 +3,7 @@
  * abilities and the exam's mix (Rasch success per item, then the Poisson-binomial distribution of the
  * total). Method in docs/learning.md.
  */
-import { abilityOf, pSuccess, type Estimate } from './rasch';
+import { abilityOf, pWithGuess, type Estimate } from './rasch';
 
 /** Our pass mark: 70 % of the items right. */
 export const CUT_SCORE = 0.7;
@@ -23,7 +23,8 @@ export function poissonBinomial(ps: readonly number[]): number[] {
 	return dist;
 }
 
-export type ExamItem = { area: string; difficulty: number };
+/** One exam item: its area, its skill's difficulty, and the chance of guessing it (1 / options on a choice item). */
+export type ExamItem = { area: string; difficulty: number; guess?: number };
 
 /** The number of right answers needed to pass `n` items at `cutScore`. */
 export function passMark(n: number, cutScore = CUT_SCORE): number {
@@ -36,7 +37,7 @@ export type Readiness = { probability: number; expectedScore: number; passMark: 
 export function readiness(input: { abilities: Readonly<Record<string, Estimate | number>>; items: readonly ExamItem[]; cutScore?: number }): Readiness {
 	const cut = input.cutScore ?? CUT_SCORE;
 	if (input.items.length === 0) throw new RangeError('An exam mix needs at least one item.');
-	const ps = input.items.map((it) => pSuccess(abilityOf(input.abilities, it.area), it.difficulty));
+	const ps = input.items.map((it) => pWithGuess(abilityOf(input.abilities, it.area), it.difficulty, it.guess ?? 0));
 	const dist = poissonBinomial(ps);
 	const mark = passMark(ps.length, cut);
 	let probability = 0;
@@ -63,13 +64,13 @@ export function allocateByWeight(weights: Readonly<Record<string, number>>, n: n
 	return out;
 }
 
-export function examMixFromWeights(weights: Readonly<Record<string, number>>, skills: readonly { area: string; difficulty: number }[], n = 50): ExamItem[] {
+export function examMixFromWeights(weights: Readonly<Record<string, number>>, skills: readonly ExamItem[], n = 50): ExamItem[] {
 	const share = allocateByWeight(weights, n);
 	const out: ExamItem[] = [];
 	for (const [area, count] of Object.entries(share)) {
 		const mine = skills.filter((s) => s.area === area);
 		if (mine.length === 0) throw new RangeError(`Area "${area}" has weight but no skills to draw from.`);
-		for (let i = 0; i < count; i++) out.push({ area, difficulty: mine[i % mine.length].difficulty });
+		for (let i = 0; i < count; i++) out.push({ ...mine[i % mine.length], area });
 	}
 	return out;
 }

@@ -41,11 +41,11 @@ export function rateAnswer(answer: { correct: boolean; seconds?: number | null; 
 }
 
 /** Desired retention far from the exam, at the exam, and the number of days over which it rises. */
-export const BASE_RETENTION = 0.85;
+export const BASE_RETENTION = 0.9;
 export const PEAK_RETENTION = 0.95;
 export const RAMP_DAYS = 21;
 /** A skill whose predicted retention on exam day falls below this gets a last review before the exam. */
-export const EXAM_TARGET = 0.93;
+export const EXAM_TARGET = 0.98;
 /** How many days before the exam that last review falls. */
 export const FINAL_LEAD_DAYS = 1;
 export const MAXIMUM_INTERVAL = 365;
@@ -55,12 +55,20 @@ export type ScheduleOptions = {
 	timeZone: string;
 	/** The learner's exam day ('YYYY-MM-DD'), or null when none is set. */
 	examDate?: string | null;
+	/** Desired retention far from the exam and on it (defaults BASE_RETENTION, PEAK_RETENTION). */
+	baseRetention?: number;
+	peakRetention?: number;
+	/** The learner's memory speed against FSRS's defaults, from calibrateMemoryFactor (default 1). */
+	memoryFactor?: number;
+	/** Exam-day retention below which a last review is placed before the exam (default EXAM_TARGET). */
+	examTarget?: number;
 };
 
 /** The desired retention for a review `daysToExam` days before the exam (null: no exam set). */
-export function desiredRetention(daysToExam: number | null): number {
-	if (daysToExam == null || daysToExam <= 0 || daysToExam >= RAMP_DAYS) return BASE_RETENTION;
-	return BASE_RETENTION + (PEAK_RETENTION - BASE_RETENTION) * (1 - daysToExam / RAMP_DAYS);
+export function desiredRetention(daysToExam: number | null, base = BASE_RETENTION, peak = PEAK_RETENTION): number {
+	if (!(base > 0 && base < 1 && peak > 0 && peak < 1)) throw new RangeError(`Desired retention must lie between 0 and 1 (got ${base} and ${peak}).`);
+	if (daysToExam == null || daysToExam <= 0 || daysToExam >= RAMP_DAYS) return base;
+	return base + (Math.max(base, peak) - base) * (1 - daysToExam / RAMP_DAYS);
 }
 
 const schedulers = new Map<number, ReturnType<typeof fsrs>>();
@@ -75,6 +83,65 @@ function schedulerFor(retention: number) {
 	return s;
 }
 const W = generatorParameters().w;
+
+/** Days until FSRS's forgetting curve falls to `retention` for a card of `stability` days. */
+export function intervalFor(stability: number, retention: number): number {
+	// Invert R = (1 + FACTOR·t/S)^DECAY (FSRS-6; computeDecayFactor gives DECAY < 0 and FACTOR).
+	let lo = 0;
+	let hi = MAXIMUM_INTERVAL * 2;
+	for (let i = 0; i < 60; i++) {
+		const mid = (lo + hi) / 2;
+		if (forgetting_curve(W, mid, stability) > retention) lo = mid;
+		else hi = mid;
+	}
+	return (lo + hi) / 2;
+}
+
+/** Limits on the memory factor: a learner is taken as at most 5 × faster or 2 × slower to forget. */
+export const MEMORY_FACTOR_MIN = 0.2;
+export const MEMORY_FACTOR_MAX = 2;
+
+export type ReviewRecord = {
+	/** Days since the previous answer on the skill. */
+	elapsedDays: number;
+	/** The card's FSRS stability before this answer. */
+	stability: number;
+	correct: boolean;
+	/** The chance of guessing the item right (1 / options on a choice item; 0 otherwise). */
+	guess?: number;
+	/** The predicted chance of knowing the skill when it is remembered (e.g. Rasch success); fixes k for this review. */
+	ceiling?: number;
+};
+
+const FACTOR_GRID = Array.from({ length: 16 }, (_, i) => MEMORY_FACTOR_MIN * Math.pow(MEMORY_FACTOR_MAX / MEMORY_FACTOR_MIN, i / 15));
+const CEILING_GRID = Array.from({ length: 11 }, (_, i) => 0.5 + i * 0.05);
+
+/**
+ * The learner's memory factor m: the multiple of FSRS's stabilities that best explains their review
+ * answers. A review is right with probability g + (1 − g)·k·R(t, m·S): a guess, or knowing the skill
+ * (ceiling k, for answers lost to slips or to not having mastered it) and remembering it (FSRS's curve
+ * with the scaled stability). m and k are the maximum-likelihood pair on a grid (m from 0.2 to 2 on a
+ * log scale, k from 0.5 to 1), using the last `window` reviews. With fewer than `minReviews` it is 1.
+ */
+export function calibrateMemoryFactor(reviews: readonly ReviewRecord[], minReviews = 30, window = 300): number {
+	const usable = reviews.filter((r) => r.stability > 0 && r.elapsedDays >= 0).slice(-window);
+	if (usable.length < minReviews) return 1;
+	let best = { m: 1, ll: -Infinity };
+	for (const m of FACTOR_GRID) {
+		const recall = usable.map((r) => forgetting_curve(W, r.elapsedDays, r.stability * m));
+		for (const k of usable.every((r) => r.ceiling != null) ? [1] : CEILING_GRID) {
+			let ll = 0;
+			for (let i = 0; i < usable.length; i++) {
+				const g = usable[i].guess ?? 0;
+				const ki = usable[i].ceiling ?? k;
+				const p = Math.min(1 - 1e-9, Math.max(1e-9, g + (1 - g) * ki * recall[i]));
+				ll += usable[i].correct ? Math.log(p) : Math.log(1 - p);
+			}
+			if (ll > best.ll) best = { m, ll };
+		}
+	}
+	return best.m;
+}
 
 export function toStoredCard(card: Card): StoredCard {
 	return {
@@ -126,13 +193,17 @@ export function scheduleReview(card: StoredCard | null, rating: ReviewRating, no
 	const today = learningDay(nowMs, options.timeZone);
 	const exam = options.examDate ? checkDay(options.examDate) : null;
 	const daysToExam = exam ? daysBetween(today, exam) : null;
-	const retention = desiredRetention(daysToExam);
+	const retention = desiredRetention(daysToExam, options.baseRetention, options.peakRetention);
 	const next = schedulerFor(retention).next(card ? fromStoredCard(card) : createEmptyCard(new Date(nowMs)), new Date(nowMs), rating as Grade).card;
-	let days = Math.max(1, Math.round(next.scheduled_days));
-	let reason = `FSRS interval of ${days} day${days === 1 ? '' : 's'} at desired retention ${retention.toFixed(3)}`;
+	const m = options.memoryFactor ?? 1;
+	if (!(m > 0)) throw new RangeError(`The memory factor must be a positive number (got ${m}).`);
+	// The card keeps FSRS's own stability; the learner's factor scales it only to place the due date.
+	const effective = next.stability * m;
+	let days = Math.max(1, Math.min(MAXIMUM_INTERVAL, Math.round(m === 1 ? next.scheduled_days : intervalFor(effective, retention))));
+	let reason = `FSRS interval of ${days} day${days === 1 ? '' : 's'} at desired retention ${retention.toFixed(3)}${m === 1 ? '' : ` and memory factor ${m.toFixed(2)}`}`;
 	if (exam && daysToExam != null && daysToExam > 0 && days >= daysToExam) {
-		const atExam = forgetting_curve(W, daysToExam, next.stability);
-		if (atExam < EXAM_TARGET) {
+		const atExam = forgetting_curve(W, daysToExam, effective);
+		if (atExam < (options.examTarget ?? EXAM_TARGET)) {
 			days = Math.max(1, daysToExam - FINAL_LEAD_DAYS);
 			reason = `last review before the exam on ${exam}: FSRS predicts ${(atExam * 100).toFixed(0)} % retention on exam day without it`;
 		} else reason += `; predicted ${(atExam * 100).toFixed(0)} % on exam day, no review needed before it`;
