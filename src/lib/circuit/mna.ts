@@ -31,9 +31,7 @@ type Structure = {
 	n: number;
 	baseA: Float64Array;
 	baseRhs: Float64Array;
-	/** Nonzero columns of row k: cols[nzStart[k]] .. cols[nzStart[k + 1] - 1]. */
-	cols: Int32Array;
-	nzStart: Int32Array;
+	/** Row k has no nonzero (fuses and diodes included) left of first[k] or right of last[k]. */
 	first: Int32Array;
 	last: Int32Array;
 };
@@ -62,8 +60,6 @@ let rhs = new Float64Array(0);
 let xs = new Float64Array(0);
 let perm = new Int32Array(0);
 let spans: Spans = makeSpans(0);
-/** The structure whose row lists `spans.nz` holds (fill-in appended after each row's own entries). */
-let lastLists: Structure | null = null;
 
 function ensureScratch(n: number): void {
 	if (spans.cap >= n) return;
@@ -73,7 +69,6 @@ function ensureScratch(n: number): void {
 	xs = new Float64Array(cap);
 	perm = new Int32Array(cap);
 	spans = makeSpans(cap);
-	lastLists = null;
 }
 
 /** Allocates the per-solve state for a compiled network. */
@@ -100,6 +95,9 @@ export function contactClosed(net: Net, cfg: Config, r: number, nc: boolean): bo
 }
 
 const structures = new WeakMap<Net, Map<number, Structure>>();
+let sparScratch = new Int32Array(0);
+let spotScratch = new Float64Array(0);
+let tmpScratch = new Int32Array(0);
 
 function relayKey(relay: Int8Array): number {
 	let k = 0;
@@ -141,8 +139,14 @@ function buildStructure(net: Net, cfg: Config): Structure {
 	}
 	const root = new Int32Array(nn);
 	const gOf = new Int32Array(nn);
-	const spar = new Int32Array(nn);
-	const spot = new Float64Array(nn);
+	if (sparScratch.length < nn) {
+		sparScratch = new Int32Array(nn);
+		spotScratch = new Float64Array(nn);
+		tmpScratch = new Int32Array(nn);
+	}
+	const spar = sparScratch;
+	const spot = spotScratch;
+	spot.fill(0, 0, nn);
 	for (let i = 0; i < nn; i++) {
 		root[i] = findRoot(parent, i);
 		gOf[i] = net.dormant[i] ? -2 : -3;
@@ -154,7 +158,7 @@ function buildStructure(net: Net, cfg: Config): Structure {
 	const rowOfSrc = new Int32Array(ne).fill(-1);
 	const empty = new Float64Array(0);
 	const none = new Int32Array(0);
-	const s0: Structure = { dead: -1, parent, root, gOf, fixedV, srcOn, rowOfSrc, nv: 0, n: 0, baseA: empty, baseRhs: empty, cols: none, nzStart: none, first: none, last: none };
+	const s0: Structure = { dead: -1, parent, root, gOf, fixedV, srcOn, rowOfSrc, nv: 0, n: 0, baseA: empty, baseRhs: empty, first: none, last: none };
 	// sources: weighted union-find over merged nodes; a loop of sources and 0 Ω elements is a dead short
 	const srcs = net.sources;
 	for (let s = 0; s < srcs.length; s++) {
@@ -177,7 +181,8 @@ function buildStructure(net: Net, cfg: Config): Structure {
 	const gTree = sfind(spar, root[1]);
 	const gPot = spotOf(spar, spot, root[1]);
 	// unknown merged nodes, numbered leaves first so that elimination makes little fill-in
-	const tmp = new Int32Array(nn).fill(-1);
+	const tmp = tmpScratch;
+	tmp.fill(-1, 0, nn);
 	const groups: number[] = [];
 	for (let i = 0; i < nn; i++) {
 		if (gOf[i] === -2 || root[i] !== i) continue;
@@ -251,63 +256,38 @@ function buildStructure(net: Net, cfg: Config): Structure {
 		if (srcOn[e] && gOf[root[ea[e]]] >= 0) rowOfSrc[e] = nv + ns++;
 	}
 	const n = nv + ns;
-	// nonzero pattern by rows: the diagonal, conducting neighbours, source rows and columns
-	const rowLen = new Int32Array(n + 1);
-	const pairs: number[] = [];
-	for (let k = 0; k < n; k++) pairs.push(k, k);
+	// the matrix of the fixed elements, and each row's span of nonzeros (fuses and diodes included)
+	const baseA = new Float64Array(n * n);
+	const baseRhs = new Float64Array(n);
+	const first = new Int32Array(n);
+	const last = new Int32Array(n);
+	for (let k = 0; k < n; k++) first[k] = last[k] = k;
+	const st: Structure = { dead: -1, parent, root, gOf, fixedV, srcOn, rowOfSrc, nv, n, baseA, baseRhs, first, last };
 	for (let i = 0; i < ne; i++) {
 		const c = code[i];
 		if (conductive(c)) {
 			const ia = gOf[root[ea[i]]];
 			const ib = gOf[root[eb[i]]];
-			if (ia >= 0 && ib >= 0 && ia !== ib) pairs.push(ia, ib, ib, ia);
+			if (ia >= 0 && ib >= 0) {
+				if (ib < first[ia]) first[ia] = ib;
+				if (ib > last[ia]) last[ia] = ib;
+				if (ia < first[ib]) first[ib] = ia;
+				if (ia > last[ib]) last[ib] = ia;
+			}
+			if (c === Code.Resistor || c === Code.Coil) stampInto(st, baseA, baseRhs, n, ea[i], eb[i], net.g[i], 0);
 		} else if (c === Code.Source && rowOfSrc[i] >= 0) {
-			const k = rowOfSrc[i];
-			const ip = gOf[root[ea[i]]];
-			const im = gOf[root[eb[i]]];
-			pairs.push(ip, k, k, ip);
-			if (im >= 0) pairs.push(im, k, k, im);
-		}
-	}
-	for (let q = 0; q < pairs.length; q += 2) rowLen[pairs[q] + 1]++;
-	for (let k = 0; k < n; k++) rowLen[k + 1] += rowLen[k];
-	const cols = new Int32Array(rowLen[n]);
-	const put = rowLen.slice(0, n);
-	for (let q = 0; q < pairs.length; q += 2) cols[put[pairs[q]]++] = pairs[q + 1];
-	// drop repeated columns within each row
-	const nzStart = new Int32Array(n + 1);
-	const stamp = new Int32Array(n).fill(-1);
-	let w = 0;
-	const first = new Int32Array(n);
-	const last = new Int32Array(n);
-	for (let k = 0; k < n; k++) {
-		nzStart[k] = w;
-		first[k] = last[k] = k;
-		for (let q = rowLen[k]; q < put[k]; q++) {
-			const j = cols[q];
-			if (stamp[j] === k) continue;
-			stamp[j] = k;
-			cols[w++] = j;
-			if (j < first[k]) first[k] = j;
-			if (j > last[k]) last[k] = j;
-		}
-	}
-	nzStart[n] = w;
-	const baseA = new Float64Array(n * n);
-	const baseRhs = new Float64Array(n);
-	const st: Structure = { dead: -1, parent, root, gOf, fixedV, srcOn, rowOfSrc, nv, n, baseA, baseRhs, cols: cols.slice(0, w), nzStart, first, last };
-	for (let i = 0; i < ne; i++) {
-		const c = code[i];
-		if (c === Code.Resistor || c === Code.Coil) stampInto(st, baseA, baseRhs, n, ea[i], eb[i], net.g[i], 0);
-		else if (c === Code.Source && rowOfSrc[i] >= 0) {
 			const k = rowOfSrc[i];
 			const ip = gOf[root[ea[i]]];
 			const im = gOf[root[eb[i]]];
 			baseA[ip * n + k] += 1;
 			baseA[k * n + ip] += 1;
+			first[k] = Math.min(first[k], ip);
+			last[ip] = Math.max(last[ip], k);
 			if (im >= 0) {
 				baseA[im * n + k] -= 1;
 				baseA[k * n + im] -= 1;
+				first[k] = Math.min(first[k], im);
+				last[im] = Math.max(last[im], k);
 			}
 			baseRhs[k] = net.ev[i];
 		}
@@ -370,18 +350,6 @@ export function solveLinear(net: Net, cfg: Config, w: Work): boolean {
 	ensureScratch(n);
 	A.set(st.baseA);
 	rhs.set(st.baseRhs);
-	// fill-in only appends to the row lists, so unless rows were swapped the lists of the structure
-	// solved last are restored by their counts alone
-	if (lastLists !== st || spans.swapped) {
-		const nz = spans.nz;
-		for (let k = 0; k < n; k++) {
-			const r = k * n;
-			let q = 0;
-			for (let p = st.nzStart[k]; p < st.nzStart[k + 1]; p++) nz[r + q++] = st.cols[p];
-		}
-		lastLists = st;
-	}
-	for (let k = 0; k < n; k++) spans.cnt[k] = st.nzStart[k + 1] - st.nzStart[k];
 	spans.first.set(st.first);
 	spans.last.set(st.last);
 	const ea = net.ea;
@@ -395,7 +363,7 @@ export function solveLinear(net: Net, cfg: Config, w: Work): boolean {
 		if (cfg.diodeOn[d]) stampInto(st, A, rhs, n, ea[e], eb[e], g[e], g[e] * net.ev[e]);
 	}
 	if (n > 0) {
-		luFactor(A, n, perm, spans, 'lists');
+		luFactor(A, n, perm, spans, true);
 		luSolve(A, n, perm, rhs, xs, spans);
 	}
 	const V = w.V;
