@@ -118,18 +118,20 @@ const CEILING_GRID = Array.from({ length: 11 }, (_, i) => 0.5 + i * 0.05);
 
 /**
  * The learner's memory factor m: the multiple of FSRS's stabilities that best explains their review
- * answers. A review is right with probability g + (1 − g)·k·R(t, m·S): a guess, or knowing the skill
- * (ceiling k, for answers lost to slips or to not having mastered it) and remembering it (FSRS's curve
- * with the scaled stability). m and k are the maximum-likelihood pair on a grid (m from 0.2 to 2 on a
- * log scale, k from 0.5 to 1), using the last `window` reviews. With fewer than `minReviews` it is 1.
+ * answers. A review is right with probability g + (1 − g)·k·R(t, m·S): a guess, or knowing the skill and
+ * remembering it (FSRS's curve with the scaled stability). k is the review's `ceiling` when given, else 1,
+ * or with `fitCeiling` a free value from 0.5 to 1 (m and k then trade off, so m is less certain). m is
+ * the maximum-likelihood value on a log grid from 0.2 to 2 over the last `window` reviews; with fewer
+ * than `minReviews` it is 1 (FSRS's defaults).
  */
-export function calibrateMemoryFactor(reviews: readonly ReviewRecord[], minReviews = 30, window = 300): number {
+export function calibrateMemoryFactor(reviews: readonly ReviewRecord[], options: { minReviews?: number; window?: number; fitCeiling?: boolean } = {}): number {
+	const { minReviews = 30, window = 300, fitCeiling = false } = options;
 	const usable = reviews.filter((r) => r.stability > 0 && r.elapsedDays >= 0).slice(-window);
 	if (usable.length < minReviews) return 1;
 	let best = { m: 1, ll: -Infinity };
 	for (const m of FACTOR_GRID) {
 		const recall = usable.map((r) => forgetting_curve(W, r.elapsedDays, r.stability * m));
-		for (const k of usable.every((r) => r.ceiling != null) ? [1] : CEILING_GRID) {
+		for (const k of fitCeiling ? CEILING_GRID : [1]) {
 			let ll = 0;
 			for (let i = 0; i < usable.length; i++) {
 				const g = usable[i].guess ?? 0;
