@@ -124,131 +124,137 @@ export function applyFault(c: Circuit, fault: Fault | string): Circuit {
 /** Faulted circuits by circuit and fault text; circuits are never changed, so a repeat returns the same object. */
 const faultCache = new WeakMap<Circuit, Map<string, Circuit>>();
 
+type FaultCtx = { c: Circuit; f: Fault; text: string; nodeNames: string[]; elements: NetElement[] };
+
+function findWire(c: Circuit, id: string): Circuit['wires'][number] | undefined {
+	for (const w of c.wires) if (w.id === id) return w;
+	return undefined;
+}
+
+function findPart(c: Circuit, id: string): Circuit['parts'][number] | undefined {
+	for (const p of c.parts) if (p.id === id) return p;
+	return undefined;
+}
+
+function failWith(text: string, msg: string): never {
+	throw new FaultError(text, msg);
+}
+
+function faultElement(a: number, b: number, ohms: number): NetElement {
+	return { id: 'fault', pathId: null, kind: 'fault', role: 'resistor', a, b, ohms, volts: 0, part: -1, position: undefined, stuck: undefined, dead: undefined, mid: undefined, battery: undefined };
+}
+
+/** Splits wire `id` at its midpoint; returns [first-half end node, second-half start node]. */
+function splitWire(x: FaultCtx, id: string, series: boolean): [number, number] {
+	const i = x.elements.findIndex((e) => e.kind === 'wire' && e.id === id);
+	const e = x.elements[i];
+	const m1 = x.nodeNames.length;
+	x.nodeNames.push(series ? `${id}#mid1` : `${id}#mid`);
+	let m2 = m1;
+	if (series) {
+		m2 = x.nodeNames.length;
+		x.nodeNames.push(`${id}#mid2`);
+	}
+	const half = e.ohms / 2;
+	const role = e.ohms > 0 ? 'resistor' : 'ideal';
+	const h1: NetElement = { ...e, id: `${id}#1`, b: m1, ohms: half, role };
+	const h2: NetElement = { ...e, id: `${id}#2`, a: m2, ohms: half, role };
+	x.elements.splice(i, 1, h1, h2);
+	return [m1, m2];
+}
+
+function needWire(x: FaultCtx, id: string): void {
+	if (!findWire(x.c, id)) failWith(x.text, `fault ${x.f.kind} needs a wire; "${id}" is not a wire of this circuit`);
+}
+
 function buildFaulted(c: Circuit, f: Fault, text: string): Circuit {
 	if (c.fault) throw new FaultError(text, `circuit already has fault ${c.fault}; faults apply one at a time`);
-	const nodeNames = c.nodeNames.slice();
 	// copy on write: unchanged elements are shared with the circuit given (elements are never mutated)
-	let elements: NetElement[] = c.elements.slice();
+	const x: FaultCtx = { c, f, text, nodeNames: c.nodeNames.slice(), elements: c.elements.slice() };
 	const deadCoils = c.deadCoils.slice();
 	const openedParts = c.openedParts.slice();
-	const wire = (id: string) => c.wires.find((w) => w.id === id);
-	const part = (id: string) => c.parts.find((p) => p.id === id);
-	const fail = (msg: string): never => {
-		throw new FaultError(text, msg);
-	};
-	const faultEl = (a: number, b: number, ohms: number): NetElement => ({
-		id: 'fault',
-		pathId: null,
-		kind: 'fault',
-		role: 'resistor',
-		a,
-		b,
-		ohms,
-		volts: 0,
-		part: -1
-	});
-	/** Splits wire `id`; returns [first-half end node, second-half start node]. */
-	const split = (id: string, series: boolean): [number, number] => {
-		const i = elements.findIndex((e) => e.kind === 'wire' && e.id === id);
-		const e = elements[i];
-		const m1 = nodeNames.length;
-		nodeNames.push(series ? `${id}#mid1` : `${id}#mid`);
-		let m2 = m1;
-		if (series) {
-			m2 = nodeNames.length;
-			nodeNames.push(`${id}#mid2`);
-		}
-		const half = e.ohms / 2;
-		const role = e.ohms > 0 ? 'resistor' : 'ideal';
-		const h1: NetElement = { ...e, id: `${id}#1`, b: m1, ohms: half, role };
-		const h2: NetElement = { ...e, id: `${id}#2`, a: m2, ohms: half, role };
-		elements.splice(i, 1, h1, h2);
-		return [m1, m2];
-	};
-	const needWire = (id: string) => {
-		if (!wire(id)) fail(`fault ${f.kind} needs a wire; "${id}" is not a wire of this circuit`);
-	};
 	const dot = f.target.indexOf('.');
 	const pid = dot >= 0 ? f.target.slice(0, dot) : f.target;
 	const sub = dot >= 0 ? f.target.slice(dot + 1) : '';
-	const p = part(pid);
+	const p = findPart(c, pid);
 	const cavity = p && p.type === 'connector' && dot >= 0 ? Number(sub) : NaN;
 	const cavityOk = Number.isInteger(cavity) && cavity >= 1 && cavity <= (p?.cavities ?? 0) && String(cavity) === sub;
 	switch (f.kind) {
 		case 'open': {
-			if (wire(f.target)) elements = elements.filter((e) => !(e.kind === 'wire' && e.id === f.target));
+			if (findWire(c, f.target)) x.elements = x.elements.filter((e) => !(e.kind === 'wire' && e.id === f.target));
 			else if (p && dot < 0 && (isTwoPin(p) || p.type === 'ground')) {
-				elements = elements.filter((e) => e.part !== c.parts.indexOf(p) || e.kind === 'fault');
+				const pi = c.parts.indexOf(p);
+				x.elements = x.elements.filter((e) => e.part !== pi || e.kind === 'fault');
 				openedParts.push(p.id);
 			} else if (p && p.type === 'connector' && dot >= 0) {
-				if (!cavityOk) fail(`${p.id} has no cavity "${sub}"; its cavities are 1 to ${p.cavities}`);
-				elements = elements.filter((e) => e.id !== f.target);
+				if (!cavityOk) failWith(text, `${p.id} has no cavity "${sub}"; its cavities are 1 to ${p.cavities}`);
+				x.elements = x.elements.filter((e) => e.id !== f.target);
 			} else if (p && p.type === 'relay' && (sub === 'coil' || sub === '87' || sub === '87a')) {
 				const pi = c.parts.indexOf(p);
 				const role = sub === 'coil' ? 'coil' : sub === '87' ? 'no' : 'nc';
-				elements = elements.filter((e) => !(e.part === pi && e.role === role));
+				x.elements = x.elements.filter((e) => !(e.part === pi && e.role === role));
 				if (sub === 'coil') deadCoils.push(p.id);
-			} else if (p && p.type === 'relay') fail(`open on a relay names K1.coil, K1.87 or K1.87a; "${f.target}" is none of them`);
-			else if (p) fail(`open does not apply to ${f.target} (a ${p.type}); it applies to wires, two-pin parts, grounds, cavities and relay coil or contacts`);
-			else fail(`unknown fault target "${f.target}"; name a wire, a part, K1.coil, K1.87, K1.87a or a cavity like C1.3`);
+			} else if (p && p.type === 'relay') failWith(text, `open on a relay names K1.coil, K1.87 or K1.87a; "${f.target}" is none of them`);
+			else if (p) failWith(text, `open does not apply to ${f.target} (a ${p.type}); it applies to wires, two-pin parts, grounds, cavities and relay coil or contacts`);
+			else failWith(text, `unknown fault target "${f.target}"; name a wire, a part, K1.coil, K1.87, K1.87a or a cavity like C1.3`);
 			break;
 		}
 		case 'shorted': {
 			if (p && dot < 0 && (LOAD_TYPES.has(p.type) || p.type === 'resistor')) {
 				const pi = c.parts.indexOf(p);
-				elements = elements.map((e) => (e.part === pi && e.role === 'resistor' ? { ...e, ohms: SHORT_OHMS } : e));
+				x.elements = x.elements.map((e) => (e.part === pi && e.role === 'resistor' ? { ...e, ohms: SHORT_OHMS } : e));
 			} else if (p && p.type === 'relay' && sub === 'coil') {
 				const pi = c.parts.indexOf(p);
-				elements = elements.map((e) => (e.part === pi && e.role === 'coil' ? { ...e, ohms: SHORT_OHMS, dead: true } : e));
-			} else if (p || wire(f.target)) fail(`shorted applies to a load, a resistor or a relay coil (K1.coil), not ${f.target}`);
-			else fail(`unknown fault target "${f.target}"; name a load, a resistor or a relay coil such as K1.coil`);
+				x.elements = x.elements.map((e) => (e.part === pi && e.role === 'coil' ? { ...e, ohms: SHORT_OHMS, dead: true } : e));
+			} else if (p || findWire(c, f.target)) failWith(text, `shorted applies to a load, a resistor or a relay coil (K1.coil), not ${f.target}`);
+			else failWith(text, `unknown fault target "${f.target}"; name a load, a resistor or a relay coil such as K1.coil`);
 			break;
 		}
 		case 'stuck-closed': {
 			if (p && dot < 0 && p.type === 'switch' && !p.positions) {
 				const pi = c.parts.indexOf(p);
-				elements = elements.map((e) => (e.part === pi && e.role === 'switch' ? { ...e, stuck: true } : e));
+				x.elements = x.elements.map((e) => (e.part === pi && e.role === 'switch' ? { ...e, stuck: true } : e));
 			} else if (p && dot < 0 && p.type === 'relay') {
 				const pi = c.parts.indexOf(p);
-				elements = elements.filter((e) => !(e.part === pi && e.role === 'nc'));
-				elements = elements.map((e) => (e.part === pi && e.role === 'no' ? { ...e, stuck: true } : e));
-			} else if (p || wire(f.target)) fail(`stuck-closed applies to a single-throw switch or a relay, not ${f.target}`);
-			else fail(`unknown fault target "${f.target}"; name a single-throw switch or a relay`);
+				x.elements = x.elements.filter((e) => !(e.part === pi && e.role === 'nc'));
+				x.elements = x.elements.map((e) => (e.part === pi && e.role === 'no' ? { ...e, stuck: true } : e));
+			} else if (p || findWire(c, f.target)) failWith(text, `stuck-closed applies to a single-throw switch or a relay, not ${f.target}`);
+			else failWith(text, `unknown fault target "${f.target}"; name a single-throw switch or a relay`);
 			break;
 		}
 		case 'short-to-ground':
 		case 'short-to-power': {
-			needWire(f.target);
-			const [m] = split(f.target, false);
-			elements.push(faultEl(m, f.kind === 'short-to-ground' ? 1 : 0, SHORT_OHMS));
+			needWire(x, f.target);
+			const [m] = splitWire(x, f.target, false);
+			x.elements.push(faultElement(m, f.kind === 'short-to-ground' ? 1 : 0, SHORT_OHMS));
 			break;
 		}
 		case 'short-between': {
 			const [w1, w2] = f.target.split(',');
-			if (!w1 || !w2 || w1 === w2) fail(`short-between needs two different wires, e.g. short-between:W3,W7`);
-			needWire(w1);
-			needWire(w2);
-			const [m1] = split(w1, false);
-			const [m2] = split(w2, false);
-			elements.push(faultEl(m1, m2, SHORT_OHMS));
+			if (!w1 || !w2 || w1 === w2) failWith(text, `short-between needs two different wires, e.g. short-between:W3,W7`);
+			needWire(x, w1);
+			needWire(x, w2);
+			const [m1] = splitWire(x, w1, false);
+			const [m2] = splitWire(x, w2, false);
+			x.elements.push(faultElement(m1, m2, SHORT_OHMS));
 			break;
 		}
 		case 'high-resistance': {
 			const ohms = f.ohms ?? HIGH_RESISTANCE_DEFAULT_OHMS;
-			if (!(ohms > 0)) fail(`high-resistance ohms must be above 0`);
-			if (wire(f.target)) {
-				const [m1, m2] = split(f.target, true);
-				elements.push(faultEl(m1, m2, ohms));
+			if (!(ohms > 0)) failWith(text, `high-resistance ohms must be above 0`);
+			if (findWire(c, f.target)) {
+				const [m1, m2] = splitWire(x, f.target, true);
+				x.elements.push(faultElement(m1, m2, ohms));
 			} else if (p && dot < 0 && p.type === 'ground') {
 				const pi = c.parts.indexOf(p);
-				elements = elements.map((e) => (e.part === pi ? { ...e, ohms: e.ohms + ohms, role: 'resistor' as const } : e));
+				x.elements = x.elements.map((e) => (e.part === pi ? { ...e, ohms: e.ohms + ohms, role: 'resistor' as const } : e));
 			} else if (p && p.type === 'connector' && dot >= 0) {
-				if (!cavityOk) fail(`${p.id} has no cavity "${sub}"; its cavities are 1 to ${p.cavities}`);
-				elements = elements.map((e) => (e.id === f.target ? { ...e, ohms, role: 'resistor' as const } : e));
-			} else if (p) fail(`high-resistance applies to a wire, a ground or a connector cavity, not ${f.target}`);
-			else fail(`unknown fault target "${f.target}"; name a wire, a ground or a cavity like C1.3`);
+				if (!cavityOk) failWith(text, `${p.id} has no cavity "${sub}"; its cavities are 1 to ${p.cavities}`);
+				x.elements = x.elements.map((e) => (e.id === f.target ? { ...e, ohms, role: 'resistor' as const } : e));
+			} else if (p) failWith(text, `high-resistance applies to a wire, a ground or a connector cavity, not ${f.target}`);
+			else failWith(text, `unknown fault target "${f.target}"; name a wire, a ground or a cavity like C1.3`);
 			break;
 		}
 	}
-	return { ...c, nodeNames, elements, fault: text, deadCoils, openedParts };
+	return { ...c, nodeNames: x.nodeNames, elements: x.elements, fault: text, deadCoils, openedParts };
 }
