@@ -3,9 +3,9 @@ import { nextPlacementItem, placementAbilities, type PlacementCandidate, type Pl
 import { makeRng } from './rng';
 
 const AREAS = ['wiring', 'relays', 'starting', 'charging'];
-// 10 skills per area with difficulties spread evenly from −3 to +3.
+// 19 skills per area with difficulties spread evenly from −3 to +3 (steps of 1/3 logit).
 const POOL: PlacementCandidate[] = AREAS.flatMap((area) =>
-	Array.from({ length: 10 }, (_, i) => ({ id: `${area}-${i}-v0`, skillId: `${area}-${i}`, area, difficulty: -3 + (6 * i) / 9 }))
+	Array.from({ length: 19 }, (_, i) => ({ id: `${area}-${i}-v0`, skillId: `${area}-${i}`, area, difficulty: -3 + i / 3 }))
 );
 const rasch = (theta: number, b: number) => 1 / (1 + Math.exp(b - theta));
 
@@ -27,13 +27,14 @@ function place(theta: number, seed: number, n: number, choose: 'ours' | 'random'
 describe('placement', () => {
 	it('starts at the middle and picks items near 50 % predicted success (maximum Fisher information of the Rasch model)', () => {
 		const first = nextPlacementItem({ candidates: POOL, responses: [], seed: 1 })!;
-		expect(Math.abs(first.item.difficulty)).toBeCloseTo(1 / 3, 12); // nearest to 0 in the pool
+		expect(first.item.difficulty).toBeCloseTo(0, 12);
+		expect(first.predictedSuccess).toBeCloseTo(0.5, 12);
 		for (let s = 0; s < 20; s++) {
 			const r = place(1, s, 11, 'ours');
 			const next = nextPlacementItem({ candidates: POOL, responses: r, seed: s })!;
-			// Difficulties step by 0.67 logit within an area and used skills drop out: within 0.3–0.7.
-			expect(next.predictedSuccess).toBeGreaterThan(0.3);
-			expect(next.predictedSuccess).toBeLessThan(0.7);
+			// Within an area difficulties step by 1/3 logit and used skills drop out, so not exactly 50 %.
+			expect(next.predictedSuccess).toBeGreaterThan(0.35);
+			expect(next.predictedSuccess).toBeLessThan(0.65);
 		}
 	});
 
