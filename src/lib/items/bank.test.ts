@@ -191,6 +191,7 @@ function rederiveDistractors(it: BuiltItem): string[] {
 		for (const d of it.distractors) {
 			if (full.includes(d.value as string)) bad.push(`distractor ${d.value} explains the whole complaint`);
 			if (d.tag === 'explains-part-of-complaint') {
+				// a fault that reproduces the observations of at least one state, or one observation, of the complaint
 				const pieces = ask.complaint.split(';').map((s) => s.trim());
 				const chunks =
 					pieces.length > 1 ? pieces : pieces[0].slice(pieces[0].indexOf(':') + 1).split(',').map((e) => `${pieces[0].slice(0, pieces[0].indexOf(':'))}: ${e.trim()}`);

@@ -9,7 +9,7 @@ import { circuitCtx, ItemError, type CircuitCache } from './engine';
 import { FAMILIES } from './families';
 import type { Family } from './families/family';
 import { FORMS, draftItems } from './families/forms';
-import { hashText, stableJson } from './hash';
+import { hashText } from './hash';
 import { readItemFile } from './markdown';
 import { makeRng } from './rng';
 import { KINDS, type BuildError, type BuiltItem, type ItemSource } from './types';
@@ -23,7 +23,7 @@ export type BuildOptions = {
 	families?: readonly Family[];
 	/** The seed of the generated variants (default `splicepoint`). */
 	seed?: string;
-	/** Variants per family, times each family's weight (default 14). */
+	/** Variants per family, times each family's weight (default 12). */
 	variantsPerFamily?: number;
 	/** A diagram check run on circuit text: returns its problems (empty when the drawing is good). */
 	checkDiagram?: (circuitText: string) => string[];
@@ -54,7 +54,8 @@ function isEngineError(e: unknown): e is Error {
 
 /** Signature of an item for distinctness: its circuit, question and key. */
 export function itemSignature(it: BuiltItem): string {
-	return hashText(it.circuitText + '\u0000' + stableJson(it.question) + stableJson(it.feedback.state) + stableJson(it.key) + it.stemHtml);
+	// JSON.stringify is enough here: questions and keys are built in a fixed key order
+	return hashText(it.circuitText + '\u0000' + JSON.stringify(it.question) + JSON.stringify(it.feedback.state) + JSON.stringify(it.key) + it.stemHtml);
 }
 
 /**
@@ -100,7 +101,7 @@ export function buildBank(o: BuildOptions): BuildResult {
 
 	const families = o.families ?? FAMILIES;
 	const seed = o.seed ?? 'splicepoint';
-	const per = o.variantsPerFamily ?? 14;
+	const per = o.variantsPerFamily ?? 12;
 	const samples = o.diagramSamples ?? 3;
 	for (const fam of families) {
 		const n = Math.max(1, Math.round(per * (fam.weight ?? 1)));
@@ -125,14 +126,15 @@ export function buildBank(o: BuildOptions): BuildResult {
 				const formRng = makeRng(`${seed}|${fam.id}|${k}|${form.id}`);
 				let drafts: ItemSource[];
 				try {
-					drafts = draftItems(fam, variant, ctx, form.id, formRng);
+					drafts = draftItems(fam, variant, ctx, form.id, formRng, makeRng(`${seed}|${fam.id}|${k}|complaints`));
 				} catch (e) {
 					if (!(e instanceof ItemError) && !isEngineError(e)) throw e;
 					errors.push({ file: where, line: 0, message: `variant ${k}, form ${form.id}: ${(e as Error).message}`, fix: 'fix the family or the form' });
 					continue;
 				}
-				let made = false;
+				let made = 0;
 				for (const src of drafts) {
+					if (made >= form.take) break;
 					if (ids.has(src.id)) continue;
 					try {
 						const built = compileItem(ctx, src);
@@ -144,8 +146,7 @@ export function buildBank(o: BuildOptions): BuildResult {
 						sigs.add(sig);
 						ids.add(built.id);
 						items.push(built);
-						made = true;
-						break;
+						made++;
 					} catch (e) {
 						if (e instanceof ItemError && e.key !== 'skill' && e.key !== 'kind') continue;
 						if (e instanceof ItemError || isEngineError(e)) {
@@ -155,7 +156,7 @@ export function buildBank(o: BuildOptions): BuildResult {
 						throw e;
 					}
 				}
-				if (!made && drafts.length > 0) skipped++;
+				if (made === 0 && drafts.length > 0) skipped++;
 			}
 		}
 	}

@@ -2,7 +2,7 @@
  * Compiling one item source into a built item: the engine computes the key and every distractor;
  * a stated key is compared with the engine's; markdown is rendered safely.
  */
-import { formatFault, parseFault, solveCircuit, standardFaults, type Reads, type SolveResult } from '../circuit';
+import { formatFault, parseFault, parseObservations, solveCircuit, standardFaults, type Observation, type Reads, type SolveResult } from '../circuit';
 import { cautionsFor, findSkill } from './blueprint';
 import {
 	checkScalarAsk,
@@ -182,19 +182,34 @@ function compilePath(ctx: CircuitCtx, ask: Extract<Ask, { type: 'path' | 'shared
 	};
 }
 
-/** Faults that explain some but not all of a complaint: each state's observations (or each observation, for one state) diagnosed alone. */
-function partialMatches(ctx: CircuitCtx, complaint: string, full: string[]): string[] {
-	const chunks = complaint.split(';').map((s) => s.trim()).filter(Boolean);
-	const pieces: string[] = [];
-	if (chunks.length > 1) pieces.push(...chunks);
+/**
+ * Faults that explain part of a complaint but not all of it: faults of the standard list (in order,
+ * up to `limit`, among those `want` accepts) that reproduce its last state's observations (or, for a
+ * one-state complaint, its first observation) without being full candidates.
+ */
+function partialMatches(ctx: CircuitCtx, complaint: string, full: string[], limit: number, want: (fault: string) => boolean = () => true): string[] {
+	const obs = parseObservations(complaint);
+	let piece: Observation;
+	if (obs.length > 1) piece = obs[obs.length - 1];
 	else {
-		const [state, body] = [chunks[0].slice(0, chunks[0].indexOf(':')), chunks[0].slice(chunks[0].indexOf(':') + 1)];
-		const entries = body.split(',').map((s) => s.trim()).filter(Boolean);
-		if (entries.length > 1) for (const e of entries) pieces.push(`${state}: ${e}`);
+		const o = obs[0];
+		const [k, v] = Object.entries(o.parts)[0] ?? [];
+		const [pk, pv] = Object.entries(o.points)[0] ?? [];
+		if (Object.keys(o.parts).length + Object.keys(o.points).length < 2) return [];
+		piece = k ? { state: o.state, parts: { [k]: v }, points: {} } : { state: o.state, parts: {}, points: { [pk]: pv } };
 	}
 	const fullSet = new Set(full);
 	const out: string[] = [];
-	for (const p of pieces) for (const cnd of diagnoseCached(ctx, p).candidates) if (cnd !== 'none' && !fullSet.has(cnd) && !out.includes(cnd)) out.push(cnd);
+	for (const f of standardFaults(ctx.circuit)) {
+		const text = formatFault(f);
+		if (fullSet.has(text) || !want(text)) continue;
+		const r = solveCached(ctx, { state: piece.state, fault: text });
+		if (!r) continue;
+		if (Object.entries(piece.parts).every(([id, st]) => r.parts[id].status === st) && Object.entries(piece.points).every(([id, cls]) => r.points[id].reads === cls)) {
+			out.push(text);
+			if (out.length >= limit) break;
+		}
+	}
 	return out;
 }
 
@@ -210,7 +225,7 @@ function complaintDiagnosis(ctx: CircuitCtx, complaint: string) {
 function compileCandidates(ctx: CircuitCtx, src: ItemSource, ask: Extract<Ask, { type: 'candidates' }>): Compiled {
 	const d = complaintDiagnosis(ctx, ask.complaint);
 	const cands = d.candidates.filter((x) => x !== 'none');
-	const partial = partialMatches(ctx, ask.complaint, cands);
+	const partial = partialMatches(ctx, ask.complaint, cands, ask.among ? Infinity : 3);
 	let options: string[];
 	if (ask.among) {
 		const listed = new Set(standardFaults(ctx.circuit).map(formatFault));
@@ -246,7 +261,7 @@ function compileOpens(ctx: CircuitCtx, ask: Extract<Ask, { type: 'opens' }>): Co
 	const d = complaintDiagnosis(ctx, ask.complaint);
 	const key = openWires(d.candidates);
 	if (key.length === 0) throw new ItemError('ask', 'no open wire explains this complaint', 'describe a complaint that an open wire produces');
-	const wrong = openWires(partialMatches(ctx, ask.complaint, d.candidates)).filter((w) => !key.includes(w));
+	const wrong = openWires(partialMatches(ctx, ask.complaint, d.candidates, Infinity, (f) => f.startsWith('open:') && wires.has(f.slice(5)))).filter((w) => !key.includes(w));
 	const distractors: Distractor[] = wrong.length ? [{ tag: 'explains-part-of-complaint', value: [...key, ...wrong], label: [...key, ...wrong].join(', ') }] : [];
 	return {
 		question: { kind: 'select-diagram', selectable: selectableElements(ctx.circuit), state: null },

@@ -40,6 +40,7 @@ export type CircuitCtx = {
 	solves: Map<string, SolveResult | null>;
 	paths: Map<string, string[] | null>;
 	diagnoses: Map<string, Diagnosis>;
+	notes: Map<string, string[]>;
 };
 
 /** Circuit contexts by circuit text, so every item on one circuit shares one parse and its solves. */
@@ -54,7 +55,7 @@ export function circuitCtx(cache: CircuitCache, text: string): CircuitCtx {
 	let ctx = cache.get(text);
 	if (!ctx) {
 		const clean = /^layout:/m.test(text) ? blankLayout(text) : text;
-		ctx = { circuit: parseCircuit(clean), text, solves: new Map(), paths: new Map(), diagnoses: new Map() };
+		ctx = { circuit: parseCircuit(clean), text, solves: new Map(), paths: new Map(), diagnoses: new Map(), notes: new Map() };
 		cache.set(text, ctx);
 	}
 	return ctx;
@@ -234,6 +235,13 @@ export function variantsFor(ctx: CircuitCtx, where: Where, keyResult: SolveResul
 
 /** The engine's sentences on relays, fuses and (optionally) one point, for feedback. */
 export function engineNotes(ctx: CircuitCtx, where: Where, point?: string): string[] {
+	const k = `${where.state}|${where.fault}|${point ?? ''}`;
+	let out = ctx.notes.get(k);
+	if (!out) ctx.notes.set(k, (out = notesOf(ctx, where, point)));
+	return out;
+}
+
+function notesOf(ctx: CircuitCtx, where: Where, point?: string): string[] {
 	const e = explainSolve(ctx.circuit, { state: where.state, fault: where.fault });
 	if ('error' in e) return [e.text];
 	const out: string[] = [];

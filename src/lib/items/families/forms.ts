@@ -13,22 +13,22 @@ import type { Rng } from '../rng';
 import type { Ask, ItemSource, Kind, ScalarAsk, Where } from '../types';
 import type { Family, FamilyVariant } from './family';
 
-/** The question forms, with the kind each makes. */
+/** The question forms, with the kind each makes and how many items each variant gives (the first that key). */
 export const FORMS = [
-	{ id: 'point-volts', kind: 'numeric' },
-	{ id: 'point-reads', kind: 'choose-one' },
-	{ id: 'part-status', kind: 'choose-one' },
-	{ id: 'load-current', kind: 'numeric' },
-	{ id: 'voltage-drop', kind: 'numeric' },
-	{ id: 'load-power', kind: 'numeric' },
-	{ id: 'load-path', kind: 'select-diagram' },
-	{ id: 'shared-path', kind: 'select-diagram' },
-	{ id: 'open-wires', kind: 'select-diagram' },
-	{ id: 'predict-loads', kind: 'predict-works' },
-	{ id: 'judge-claims', kind: 'claim-check' },
-	{ id: 'fault-candidates', kind: 'choose-all' },
-	{ id: 'next-test', kind: 'next-test' }
-] as const satisfies readonly { id: string; kind: Kind }[];
+	{ id: 'point-volts', kind: 'numeric', take: 2 },
+	{ id: 'point-reads', kind: 'choose-one', take: 2 },
+	{ id: 'part-status', kind: 'choose-one', take: 2 },
+	{ id: 'load-current', kind: 'numeric', take: 1 },
+	{ id: 'voltage-drop', kind: 'numeric', take: 1 },
+	{ id: 'load-power', kind: 'numeric', take: 1 },
+	{ id: 'load-path', kind: 'select-diagram', take: 2 },
+	{ id: 'shared-path', kind: 'select-diagram', take: 1 },
+	{ id: 'open-wires', kind: 'select-diagram', take: 1 },
+	{ id: 'predict-loads', kind: 'predict-works', take: 2 },
+	{ id: 'judge-claims', kind: 'claim-check', take: 1 },
+	{ id: 'fault-candidates', kind: 'choose-all', take: 1 },
+	{ id: 'next-test', kind: 'next-test', take: 1 }
+] as const satisfies readonly { id: string; kind: Kind; take: number }[];
 
 export type FormId = (typeof FORMS)[number]['id'];
 
@@ -59,7 +59,7 @@ function subjectWords(ask: ScalarAsk): string {
 	}
 }
 
-type Ctx = { family: Family; variant: FamilyVariant; ctx: CircuitCtx; rng: Rng };
+type Ctx = { family: Family; variant: FamilyVariant; ctx: CircuitCtx; rng: Rng; variantRng: Rng };
 type Draft = { ask: Ask; stem: string; explanation: string; area?: AreaId; skill?: string; tolerance?: number };
 
 const SPREAD = (rng: Rng, v: FamilyVariant): Where[] => {
@@ -253,7 +253,7 @@ const DRAFTS: Record<FormId, (x: Ctx) => Draft[]> = {
 		return out;
 	},
 	'fault-candidates': (x) =>
-		x.rng
+		x.variantRng
 			.shuffle(x.variant.faults)
 			.map((f) => complaintOf(x, f, null))
 			.filter((c): c is string => !!c)
@@ -265,7 +265,7 @@ const DRAFTS: Record<FormId, (x: Ctx) => Draft[]> = {
 				skill: 'fault-candidates'
 			})),
 	'next-test': (x) =>
-		x.rng
+		x.variantRng
 			.shuffle(x.variant.faults)
 			.map((f) => complaintOf(x, f, null))
 			.filter((c): c is string => !!c)
@@ -297,12 +297,14 @@ function familySkill(f: Family, form: FormId): string {
 }
 
 /**
- * The candidate item sources of one form for one variant, in order of preference. Ids are the
+ * The candidate item sources of one form for one variant, in order of preference. `rng` is the
+ * form's own; `variantRng` is made afresh for each form from the variant's seed, so forms that draw
+ * from it (the complaint forms) pick the same complaint and share its diagnosis. Ids are the
  * family, the form and a hash of the circuit and the ask, so the same variant gives the same ids.
  */
-export function draftItems(family: Family, variant: FamilyVariant, ctx: CircuitCtx, form: FormId, rng: Rng): ItemSource[] {
+export function draftItems(family: Family, variant: FamilyVariant, ctx: CircuitCtx, form: FormId, rng: Rng, variantRng: Rng): ItemSource[] {
 	const kind = FORMS.find((f) => f.id === form)!.kind;
-	const drafts = DRAFTS[form]({ family, variant, ctx, rng });
+	const drafts = DRAFTS[form]({ family, variant, ctx, rng, variantRng });
 	return drafts.map((d) => ({
 		id: `${family.id}-${form}-${shortHash(variant.circuit + stableJson(d.ask))}`,
 		area: d.area ?? family.area,

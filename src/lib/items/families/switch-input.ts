@@ -10,7 +10,7 @@ export const switchInput: Family = {
 	title: 'Switch input to a module on a pull-up',
 	area: 'sensors-inputs',
 	skills: { reading: 'sensor-reference', status: 'sensor-reference', current: 'sensor-reference', drop: 'sensor-signal-faults', works: 'sensor-reference', claims: 'sensor-signal-faults' },
-	weight: 1.5,
+	weight: 1.8,
 	variant(rng) {
 		const supply = rng.pick(REST_VOLTS);
 		const ref = rng.pick([5, 5, 12]);
