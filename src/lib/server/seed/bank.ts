@@ -1,0 +1,165 @@
+/**
+ * The demo item bank: the shipped items (content/items and every circuit family) stored with
+ * storeBank, the shipped families and hand-written items approved by the demo reviewer, and a few
+ * items of the demo author's own (one draft, two waiting for review). Idempotent: a second run adds
+ * nothing.
+ */
+import { readdirSync, readFileSync, statSync } from 'node:fs';
+import path from 'node:path';
+import { and, eq, inArray, isNull } from 'drizzle-orm';
+import { getDb } from '../db/client';
+import { item, itemFamily, itemVersion } from '../db/schema';
+import { buildBank, type BuildOptions, type BuildResult } from '../../items/bank';
+import { FAMILIES } from '../../items/families';
+import { storeBank, type StoreProgress, type StoreReport } from '../content/bank-store';
+import { approveFamily, approveItem } from '../content/review';
+import { saveDraft, submitForReview } from '../content/authoring';
+import { findAccountByEmail } from '../users/accounts';
+
+export const DEMO_REVIEWER_EMAIL = 'reviewer@harrowcreek.example';
+export const DEMO_AUTHOR_EMAIL = 'author@harrowcreek.example';
+
+function walk(dir: string, ext: string): string[] {
+	let out: string[] = [];
+	let names: string[];
+	try {
+		names = readdirSync(dir);
+	} catch {
+		return out;
+	}
+	for (const n of names.sort()) {
+		const p = path.join(dir, n);
+		if (statSync(p).isDirectory()) out = out.concat(walk(p, ext));
+		else if (n.endsWith(ext)) out.push(p);
+	}
+	return out;
+}
+
+/** The bank's source files: markdown items and circuits by project path. */
+export function readContent(root = process.cwd()): Pick<BuildOptions, 'files' | 'circuits'> {
+	const files: Record<string, string> = {};
+	for (const p of walk(path.join(root, 'content/items'), '.md')) files[path.relative(root, p)] = readFileSync(p, 'utf8');
+	const circuits: Record<string, string> = {};
+	for (const p of walk(path.join(root, 'content/circuits'), '.yaml')) circuits[path.relative(root, p)] = readFileSync(p, 'utf8');
+	return { files, circuits };
+}
+
+export const FAMILY_TITLES: Record<string, string> = Object.fromEntries(FAMILIES.map((f) => [f.id, f.title]));
+
+/** Builds the shipped bank and writes it to the database. */
+export async function buildAndStoreBank(
+	options: { onProgress?: (p: StoreProgress) => void; variantsPerFamily?: number } = {}
+): Promise<{ build: BuildResult; store: StoreReport }> {
+	const content = readContent();
+	const build = buildBank({ ...content, variantsPerFamily: options.variantsPerFamily });
+	const store = await storeBank(build.items, { onProgress: options.onProgress, familyTitles: FAMILY_TITLES, sources: content.files });
+	return { build, store };
+}
+
+const DEMO_AUTHORED: { source: string; submit: boolean }[] = [
+	{
+		submit: false,
+		source: `---
+id: demo-fan-relay-coil-feed
+area: diagrams-paths
+skill: point-readings
+kind: numeric
+circuit: content/circuits/cooling-fan-relay.yaml
+ask: { volts: A, state: hot }
+---
+With the engine hot, what does a meter read from point A to ground?
+
+## Explanation
+
+Point A is the coil's feed side, straight from the fuse: it reads battery volts in both states.
+`
+	},
+	{
+		submit: true,
+		source: `---
+id: demo-fan-relay-switched-side
+area: diagrams-paths
+skill: point-readings
+kind: numeric
+circuit: content/circuits/cooling-fan-relay.yaml
+ask: { volts: B, state: hot }
+---
+With the engine hot and the temperature switch closed, what does a meter read from point B to ground?
+
+## Explanation
+
+The closed switch grounds the coil's far side, so nearly all of the battery's volts drop across the coil.
+`
+	},
+	{
+		submit: true,
+		source: `---
+id: demo-fan-relay-fan-feed
+area: diagrams-paths
+skill: point-readings
+kind: numeric
+circuit: content/circuits/cooling-fan-relay.yaml
+ask: { volts: C, state: hot }
+---
+With the engine hot, what does a meter read from point C (the relay's output to the fan) to ground?
+
+## Explanation
+
+The energized relay closes 30 to 87, so point C reads close to battery volts.
+`
+	}
+];
+
+export type SeedBankReport = { store: StoreReport; familiesApproved: number; itemsApproved: number; demoItems: number; buildErrors: number };
+
+/**
+ * Seeds the demo bank. The demo reviewer approves every shipped family and hand-written item still in
+ * review, so the demo serves the whole shipped bank; the demo author's items are left as they are.
+ */
+export async function seedBank(options: { onProgress?: (p: StoreProgress) => void } = {}): Promise<SeedBankReport> {
+	const reviewer = await findAccountByEmail(DEMO_REVIEWER_EMAIL);
+	const author = await findAccountByEmail(DEMO_AUTHOR_EMAIL);
+	if (!reviewer || !author) throw new Error('the demo accounts are missing: run the demo seed (seedDemo) first');
+	const { build, store } = await buildAndStoreBank(options);
+	const reviewerActor = { id: reviewer.id, roles: ['reviewer'] };
+	const db = getDb();
+
+	let familiesApproved = 0;
+	const shipped = [...new Set(build.items.map((i) => i.family).filter((f): f is string => !!f))];
+	if (shipped.length) {
+		const waiting = await db
+			.select({ id: itemFamily.id })
+			.from(itemFamily)
+			.where(and(inArray(itemFamily.id, shipped), eq(itemFamily.status, 'in_review')));
+		for (const f of waiting) {
+			await approveFamily(reviewerActor, f.id);
+			familiesApproved++;
+		}
+	}
+
+	let itemsApproved = 0;
+	const hand = build.items.filter((i) => !i.family).map((i) => i.id);
+	if (hand.length) {
+		const waiting = await db
+			.select({ id: item.id })
+			.from(item)
+			.innerJoin(itemVersion, eq(itemVersion.id, item.latestVersionId))
+			.where(and(inArray(item.id, hand), isNull(item.authorId), eq(itemVersion.status, 'in_review')));
+		for (const w of waiting) {
+			await approveItem(reviewerActor, w.id);
+			itemsApproved++;
+		}
+	}
+
+	let demoItems = 0;
+	const authorActor = { id: author.id, roles: ['author'] };
+	for (const d of DEMO_AUTHORED) {
+		const id = /^id: (.+)$/m.exec(d.source)![1];
+		const [found] = await db.select({ id: item.id }).from(item).where(eq(item.id, id));
+		if (found) continue;
+		await saveDraft(authorActor, d.source);
+		if (d.submit) await submitForReview(authorActor, id);
+		demoItems++;
+	}
+	return { store, familiesApproved, itemsApproved, demoItems, buildErrors: build.errors.length };
+}
