@@ -123,7 +123,7 @@ function conductive(c: number): boolean {
 	return c === Code.Resistor || c === Code.Coil || c === Code.Fuse || c === Code.Diode;
 }
 
-export function buildStructure(net: Net, cfg: Config): Structure {
+function buildStructure(net: Net, cfg: Config): Structure {
 	const nn = net.nNodes;
 	const code = net.code;
 	const ea = net.ea;
