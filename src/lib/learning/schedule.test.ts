@@ -12,7 +12,7 @@ describe('rateAnswer (the rule in docs/learning.md)', () => {
 		[{ correct: true, seconds: 60, medianSeconds: 40 }, 3, 'right at exactly 1.5 × the median → Good'],
 		[{ correct: true, seconds: 5, medianSeconds: 40 }, 3, 'right and fast → Good (we never give Easy)'],
 		[{ correct: true, seconds: 300, medianSeconds: null }, 3, 'right with no median yet → Good']
-	])('%o → %i (%s)', (answer, rating) => {
+	] as [Parameters<typeof rateAnswer>[0], number, string][])('%o → %i (%s)', (answer, rating) => {
 		expect(rateAnswer(answer)).toBe(rating);
 	});
 });
