@@ -45,8 +45,9 @@ export const DIODE_DEFAULTS = { drop: 0.7, ohms: 0.1 } as const;
 
 /** Reading class band in mV: a point within this of the battery EMF reads `supply`, of 0 V reads `ground` (inclusive). */
 export const READING_BAND_MV = 200;
-/** Load status thresholds as fractions of the current the source volts in force would drive through the load alone. */
+/** A load is `on` at or above this fraction of the current the source volts in force would drive through it alone (product convention). */
 export const LOAD_ON_FRACTION = 0.8;
+/** A load is `weak` at or above this fraction (and below `LOAD_ON_FRACTION`), else `off` (product convention). */
 export const LOAD_WEAK_FRACTION = 0.25;
 /** Smallest current, in A, that counts as carrying current for paths (0.1 mA, the amps rounding step). */
 export const PATH_MIN_AMPS = 1e-4;
