@@ -52,10 +52,10 @@ function isEngineError(e: unknown): e is Error {
 	return ENGINE_ERRORS.some((E) => e instanceof E);
 }
 
-/** Signature of an item for distinctness: its circuit, question and key. */
-export function itemSignature(it: BuiltItem): string {
+/** Signature of an item for distinctness: its circuit, question and key. `circuitHash` saves rehashing a known circuit. */
+export function itemSignature(it: BuiltItem, circuitHash = hashText(it.circuitText)): string {
 	// JSON.stringify is enough here: questions and keys are built in a fixed key order
-	return hashText(it.circuitText + '\u0000' + JSON.stringify(it.question) + JSON.stringify(it.feedback.state) + JSON.stringify(it.key) + it.stemHtml);
+	return hashText(circuitHash + '\u0000' + JSON.stringify(it.question) + JSON.stringify(it.feedback.state) + JSON.stringify(it.key) + it.stemHtml);
 }
 
 /**
@@ -87,7 +87,7 @@ export function buildBank(o: BuildOptions): BuildResult {
 			const ctx = circuitCtx(cache, src.circuitText);
 			const built = compileItem(ctx, src);
 			ids.add(built.id);
-			sigs.add(itemSignature(built));
+			sigs.add(itemSignature(built, ctx.hash));
 			items.push(built);
 		} catch (e) {
 			if (e instanceof CircuitFileError) {
@@ -124,21 +124,26 @@ export function buildBank(o: BuildOptions): BuildResult {
 			}
 			for (const form of FORMS) {
 				const formRng = makeRng(`${seed}|${fam.id}|${k}|${form.id}`);
-				let drafts: ItemSource[];
-				try {
-					drafts = draftItems(fam, variant, ctx, form.id, formRng, makeRng(`${seed}|${fam.id}|${k}|complaints`));
-				} catch (e) {
-					if (!(e instanceof ItemError) && !isEngineError(e)) throw e;
-					errors.push({ file: where, line: 0, message: `variant ${k}, form ${form.id}: ${(e as Error).message}`, fix: 'fix the family or the form' });
-					continue;
-				}
+				const drafts = draftItems(fam, variant, ctx, form.id, formRng, makeRng(`${seed}|${fam.id}|${k}|complaints`));
 				let made = 0;
-				for (const src of drafts) {
+				let tried = 0;
+				for (;;) {
 					if (made >= form.take) break;
+					let src: ItemSource;
+					try {
+						const next = drafts.next();
+						if (next.done) break;
+						src = next.value;
+					} catch (e) {
+						if (!(e instanceof ItemError) && !isEngineError(e)) throw e;
+						errors.push({ file: where, line: 0, message: `variant ${k}, form ${form.id}: ${(e as Error).message}`, fix: 'fix the family or the form' });
+						break;
+					}
+					tried++;
 					if (ids.has(src.id)) continue;
 					try {
 						const built = compileItem(ctx, src);
-						const sig = itemSignature(built);
+						const sig = itemSignature(built, ctx.hash);
 						if (sigs.has(sig)) {
 							duplicates++;
 							continue;
@@ -156,7 +161,7 @@ export function buildBank(o: BuildOptions): BuildResult {
 						throw e;
 					}
 				}
-				if (made === 0 && drafts.length > 0) skipped++;
+				if (made === 0 && tried > 0) skipped++;
 			}
 		}
 	}

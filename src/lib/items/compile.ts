@@ -451,7 +451,7 @@ export function compileItem(ctx: CircuitCtx, src: ItemSource): BuiltItem {
 	const why = comp.feedback.notes.join('; ');
 	const explanation = src.explanation.replace(/\{\{key\}\}/g, comp.keyText).replace(/\{\{why\}\}/g, why);
 	const contentHash = hashText(
-		stableJson({ id: src.id, area: src.area, skill: src.skill, kind: src.kind, circuit: src.circuitText, ask: src.ask, tolerance: src.tolerance, tags: src.tags, stem: src.stem, explanation: src.explanation, stated: src.statedKey })
+		stableJson({ id: src.id, area: src.area, skill: src.skill, kind: src.kind, circuit: ctx.hash, ask: src.ask, tolerance: src.tolerance, tags: src.tags, stem: src.stem, explanation: src.explanation, stated: src.statedKey })
 	);
 	const keyHash = hashText(stableJson({ key: comp.key, distractors: comp.distractors }));
 	return {

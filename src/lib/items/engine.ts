@@ -16,6 +16,7 @@ import {
 	type SolveResult,
 	type WhatIf
 } from '../circuit';
+import { hashText } from './hash';
 import type { ScalarAsk, Value, Where } from './types';
 
 /** An expected problem with an item: `key` names the front-matter key it comes from, `fix` what to do. */
@@ -37,6 +38,8 @@ export const LOAD_TYPES = new Set(['lamp', 'motor', 'horn', 'heater', 'solenoid'
 export type CircuitCtx = {
 	circuit: Circuit;
 	text: string;
+	/** Hash of the circuit text, computed once. */
+	hash: string;
 	solves: Map<string, SolveResult | null>;
 	paths: Map<string, string[] | null>;
 	diagnoses: Map<string, Diagnosis>;
@@ -55,7 +58,7 @@ export function circuitCtx(cache: CircuitCache, text: string): CircuitCtx {
 	let ctx = cache.get(text);
 	if (!ctx) {
 		const clean = /^layout:/m.test(text) ? blankLayout(text) : text;
-		ctx = { circuit: parseCircuit(clean), text, solves: new Map(), paths: new Map(), diagnoses: new Map(), notes: new Map() };
+		ctx = { circuit: parseCircuit(clean), text, hash: hashText(text), solves: new Map(), paths: new Map(), diagnoses: new Map(), notes: new Map() };
 		cache.set(text, ctx);
 	}
 	return ctx;

@@ -8,9 +8,9 @@ import type { AreaId } from '../blueprint';
 import { evalScalar, type CircuitCtx } from '../engine';
 import { formatValue } from '../compile';
 import { faultWords } from '../words';
-import { shortHash, stableJson } from '../hash';
+import { shortHash } from '../hash';
 import type { Rng } from '../rng';
-import type { Ask, ItemSource, Kind, ScalarAsk, Where } from '../types';
+import type { Ask, Claim, ItemSource, Kind, ScalarAsk, Where } from '../types';
 import type { Family, FamilyVariant } from './family';
 
 /** The question forms, with the kind each makes and how many items each variant gives (the first that key). */
@@ -122,7 +122,15 @@ function complaintWords(x: Ctx, complaint: string): string {
 		.join('; ');
 }
 
-const DRAFTS: Record<FormId, (x: Ctx) => Draft[]> = {
+/** Drafts from the complaints of the faults in order, computed only as far as the build reads. */
+function* lazyComplaints(x: Ctx, faults: string[], make: (complaint: string) => Draft): Generator<Draft> {
+	for (const f of faults) {
+		const c = complaintOf(x, f, null);
+		if (c) yield make(c);
+	}
+}
+
+const DRAFTS: Record<FormId, (x: Ctx) => Iterable<Draft>> = {
 	'point-volts': (x) =>
 		SPREAD(x.rng, x.variant).flatMap((w) =>
 			x.rng.shuffle(labelled(x.ctx)).slice(0, 2).map((p) => ({
@@ -203,17 +211,13 @@ const DRAFTS: Record<FormId, (x: Ctx) => Draft[]> = {
 				]
 			: [],
 	'open-wires': (x) =>
-		x.rng
-			.shuffle(x.variant.faults.filter((f) => f.startsWith('open:') && x.ctx.circuit.wires.some((w) => `open:${w.id}` === f)))
-			.map((f) => complaintOf(x, f, null))
-			.filter((c): c is string => !!c)
-			.map((complaint) => ({
-				ask: { type: 'opens', complaint } as Ask,
-				stem: `${x.variant.title} The complaint, ${complaintWords(x, complaint)}. Select every wire where an open would explain it.`,
-				explanation: `An open in {{key}} explains the complaint. {{why}}.`,
-				area: 'diagnostic-strategy',
-				skill: 'open-location'
-			})),
+		lazyComplaints(x, x.rng.shuffle(x.variant.faults.filter((f) => f.startsWith('open:') && x.ctx.circuit.wires.some((w) => `open:${w.id}` === f))), (complaint) => ({
+			ask: { type: 'opens', complaint } as Ask,
+			stem: `${x.variant.title} The complaint, ${complaintWords(x, complaint)}. Select every wire where an open would explain it.`,
+			explanation: `An open in {{key}} explains the complaint. {{why}}.`,
+			area: 'diagnostic-strategy',
+			skill: 'open-location'
+		})),
 	'predict-loads': (x) =>
 		x.variant.loads.length === 0
 			? []
@@ -225,12 +229,14 @@ const DRAFTS: Record<FormId, (x: Ctx) => Draft[]> = {
 				explanation: `{{key}}. {{why}}.`
 			};
 		}),
-	'judge-claims': (x) => {
+	'judge-claims': function* (x) {
+		// lazy: each candidate solves its claims, and the build stops at the first it can key
 		const pts = labelled(x.ctx);
-		const out: Draft[] = [];
 		for (const w of SPREAD(x.rng, x.variant).filter((q) => q.fault)) {
 			const picks = x.rng.shuffle(pts).slice(0, 2);
-			const claims = picks.map((p, i) => {
+			const claims: Claim[] = [];
+			for (let i = 0; i < picks.length; i++) {
+				const p = picks[i];
 				const ask: ScalarAsk = i === 0 ? { type: 'reads', point: p, ...w } : { type: 'volts', point: p, ...w };
 				// claim the value the point would have without the fault, or with it: the engine decides which is true
 				const alt: ScalarAsk = x.rng.next() < 0.5 ? ask : { ...ask, fault: null };
@@ -238,44 +244,34 @@ const DRAFTS: Record<FormId, (x: Ctx) => Draft[]> = {
 				try {
 					is = evalScalar(x.ctx, alt).value;
 				} catch {
-					return null;
+					break;
 				}
-				const text = `${whereWords(x.ctx, x.variant, w)}, ${subjectWords(ask)} reads ${valueWords(ask, is)}.`;
-				return { text, ask, is };
-			});
-			if (claims.some((c) => !c)) continue;
-			out.push({
-				ask: { type: 'claims', claims: claims as { text: string; ask: ScalarAsk; is: string | number }[] },
+				claims.push({ text: `${whereWords(x.ctx, x.variant, w)}, ${subjectWords(ask)} reads ${valueWords(ask, is)}.`, ask, is });
+			}
+			if (claims.length !== picks.length) continue;
+			yield {
+				ask: { type: 'claims', claims },
 				stem: `${x.variant.title} Judge each statement true or false.`,
 				explanation: `{{key}}. {{why}}.`
-			});
+			};
 		}
-		return out;
 	},
 	'fault-candidates': (x) =>
-		x.variantRng
-			.shuffle(x.variant.faults)
-			.map((f) => complaintOf(x, f, null))
-			.filter((c): c is string => !!c)
-			.map((complaint) => ({
-				ask: { type: 'candidates', complaint, among: null } as Ask,
-				stem: `${x.variant.title} The complaint, ${complaintWords(x, complaint)}. Which of these faults would explain it? Choose every one that does.`,
-				explanation: `{{key}} explain the complaint; the others would also change something that was observed as normal.`,
-				area: 'diagnostic-strategy',
-				skill: 'fault-candidates'
-			})),
+		lazyComplaints(x, x.variantRng.shuffle(x.variant.faults), (complaint) => ({
+			ask: { type: 'candidates', complaint, among: null } as Ask,
+			stem: `${x.variant.title} The complaint, ${complaintWords(x, complaint)}. Which of these faults would explain it? Choose every one that does.`,
+			explanation: `{{key}} explain the complaint; the others would also change something that was observed as normal.`,
+			area: 'diagnostic-strategy',
+			skill: 'fault-candidates'
+		})),
 	'next-test': (x) =>
-		x.variantRng
-			.shuffle(x.variant.faults)
-			.map((f) => complaintOf(x, f, null))
-			.filter((c): c is string => !!c)
-			.map((complaint) => ({
-				ask: { type: 'next-test', complaint } as Ask,
-				stem: `${x.variant.title} The complaint, ${complaintWords(x, complaint)}. Which labelled point, in which switch position, do you measure next to narrow the faults down fastest?`,
-				explanation: `Measure {{key}}: it splits the possible faults best. {{why}}.`,
-				area: 'diagnostic-strategy',
-				skill: 'next-test'
-			}))
+		lazyComplaints(x, x.variantRng.shuffle(x.variant.faults), (complaint) => ({
+			ask: { type: 'next-test', complaint } as Ask,
+			stem: `${x.variant.title} The complaint, ${complaintWords(x, complaint)}. Which labelled point, in which switch position, do you measure next to narrow the faults down fastest?`,
+			explanation: `Measure {{key}}: it splits the possible faults best. {{why}}.`,
+			area: 'diagnostic-strategy',
+			skill: 'next-test'
+		}))
 };
 
 /** Skill of a form in the family's own area. */
@@ -302,22 +298,22 @@ function familySkill(f: Family, form: FormId): string {
  * from it (the complaint forms) pick the same complaint and share its diagnosis. Ids are the
  * family, the form and a hash of the circuit and the ask, so the same variant gives the same ids.
  */
-export function draftItems(family: Family, variant: FamilyVariant, ctx: CircuitCtx, form: FormId, rng: Rng, variantRng: Rng): ItemSource[] {
+export function* draftItems(family: Family, variant: FamilyVariant, ctx: CircuitCtx, form: FormId, rng: Rng, variantRng: Rng): Generator<ItemSource> {
 	const kind = FORMS.find((f) => f.id === form)!.kind;
-	const drafts = DRAFTS[form]({ family, variant, ctx, rng, variantRng });
-	return drafts.map((d) => ({
-		id: `${family.id}-${form}-${shortHash(variant.circuit + stableJson(d.ask))}`,
-		area: d.area ?? family.area,
-		skill: d.skill ?? familySkill(family, form),
-		kind,
-		family: family.id,
-		origin: `family:${family.id}`,
-		circuitText: variant.circuit,
-		circuitRef: `family:${family.id}`,
-		ask: d.ask,
-		tolerance: d.tolerance ?? null,
-		tags: variant.tags ?? [],
-		stem: d.stem,
-		explanation: d.explanation
-	}));
+	for (const d of DRAFTS[form]({ family, variant, ctx, rng, variantRng }))
+		yield {
+			id: `${family.id}-${form}-${shortHash(ctx.hash + JSON.stringify(d.ask))}`,
+			area: d.area ?? family.area,
+			skill: d.skill ?? familySkill(family, form),
+			kind,
+			family: family.id,
+			origin: `family:${family.id}`,
+			circuitText: variant.circuit,
+			circuitRef: `family:${family.id}`,
+			ask: d.ask,
+			tolerance: d.tolerance ?? null,
+			tags: variant.tags ?? [],
+			stem: d.stem,
+			explanation: d.explanation
+		};
 }
