@@ -126,6 +126,15 @@ function median(xs: number[]): number {
 	return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
 }
 
+/** µs for a fixed loop (summing 1225 doubles), to tell how busy the machine is while benchmarking. */
+function speedCheckUs(): number {
+	const a = new Float64Array(1225).fill(1.5);
+	let x = 0;
+	const t0 = performance.now();
+	for (let r = 0; r < 20000; r++) for (let i = 0; i < 1225; i++) x += a[i];
+	return ((performance.now() - t0) * 1000) / 20000 + (x < 0 ? 1 : 0);
+}
+
 /** Median per-call time in µs: `rounds` batches of `batch` calls, each batch timed as a whole. */
 function timeUs(fn: () => void, rounds: number, batch: number): number {
 	for (let i = 0; i < batch * 3; i++) fn();
@@ -144,6 +153,7 @@ async function main(): Promise<void> {
 	const state = 'on';
 	const fault = 'high-resistance:W20';
 	console.log(`load average before: ${loadavg().map((x) => x.toFixed(2)).join(' ')} (2 cores; other work on the machine slows every figure)`);
+	console.log(`speed check: ${speedCheckUs().toFixed(2)} µs for a 1225-double sum (lower is a quieter machine)`);
 	console.log(`circuit: ${c.parts.length} parts, ${c.wires.length} wires, ${c.nodeNames.length} nodes; state ${state}, fault ${fault}`);
 
 	const parseUs = timeUs(() => parseCircuit(text), 30, 10);
@@ -187,7 +197,7 @@ async function main(): Promise<void> {
 	const nt = d.next_test ? `${d.next_test.state}/${d.next_test.point}` : 'none';
 	console.log(`diagnosis (${d.candidates.length} of ${standardFaults(c).length + 1} candidates reproduce, 2 states, next test ${nt}): median ${diagnoseMs.toFixed(2)} ms on a fresh circuit, ${warmMs.toFixed(2)} ms repeated`);
 
-	console.log(`load average after: ${loadavg().map((x) => x.toFixed(2)).join(' ')}`);
+	console.log(`load average after: ${loadavg().map((x) => x.toFixed(2)).join(' ')}; speed check ${speedCheckUs().toFixed(2)} µs`);
 	const round = (x: number, n: number) => Number(x.toFixed(n));
 	console.log(
 		JSON.stringify({ parse_us: round(parseUs, 1), solve_us: round(solveUs, 2), ngspice_us: round(ngspiceUs, 1), ratio: round(ratio, 1), diagnose_ms: round(diagnoseMs, 3) })

@@ -111,7 +111,10 @@ export function diagnose(c: Circuit, observations: Observation[]): Diagnosis {
 					fc = f ? applyFault(c, f) : c;
 					circuits.set(fi, fc);
 				}
-				if (!matchesNow(settle(compileNet(fc, o.state, null)), o)) ok = false;
+				const s = settle(compileNet(fc, o.state, null));
+				if (!matchesNow(s, o)) ok = false;
+				// a fault still in the running is looked at again for the next test: keep its readings
+				else cache.set(key, buildResult(s, fc.fault, false));
 			}
 			if (!ok) break;
 		}
