@@ -99,6 +99,12 @@ describe('composeDailySet', () => {
 		expect(set.minutes).toBe(2);
 	});
 
+	it('adds no new skill while due reviews are left out for lack of time', () => {
+		// Two 30 s reviews are due; a 0.5-minute budget holds one, so the other waits and no new skill comes in.
+		const set = composeDailySet(input({ settings: { maxMinutes: 0.5 } }));
+		expect(set.items.map((i) => i.kind)).toEqual(['review']);
+	});
+
 	it('adds no new skills in the week before the exam', () => {
 		const set = composeDailySet(input({ examDate: '2026-04-25' }));
 		expect(set.items.every((i) => i.kind === 'review')).toBe(true);

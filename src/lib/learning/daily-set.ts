@@ -76,7 +76,8 @@ function bandDistance(p: number, band: readonly [number, number]): number {
 /**
  * Composes one learning day's set, in order, each item with the reason it is there. Deterministic for
  * a given seed. Stops at `maxItems` or when the next item would pass `maxMinutes` (the first item always
- * fits). A due skill with no variant other than the last one seen is skipped and listed in `skipped`.
+ * fits); when due reviews fill it, no new skill is added. A due skill with no variant other than the
+ * last one seen is skipped and listed in `skipped`.
  */
 export function composeDailySet(input: DailySetInput): DailySet {
 	const s: DailySettings = { ...DEFAULT_DAILY, ...input.settings };
@@ -91,6 +92,7 @@ export function composeDailySet(input: DailySetInput): DailySet {
 	const due = input.skills
 		.filter((k) => input.cards[k.id] && toMs(input.cards[k.id].due) <= nowMs)
 		.sort((a, b) => toMs(input.cards[a.id].due) - toMs(input.cards[b.id].due) || (a.id < b.id ? -1 : 1));
+	let full = false;
 	for (const k of due) {
 		const card = input.cards[k.id];
 		const fresh = k.variants.filter((v) => v.id !== input.lastVariant[k.id]);
@@ -99,7 +101,10 @@ export function composeDailySet(input: DailySetInput): DailySet {
 			continue;
 		}
 		const v = pick(rng, fresh);
-		if (!fits(secondsOf(v))) break;
+		if (!fits(secondsOf(v))) {
+			full = true;
+			break;
+		}
 		const lastMs = card.last_review ? toMs(card.last_review) : nowMs;
 		const overdue = daysBetween(learningDay(toMs(card.due), input.timeZone), day);
 		const ability = abilityOf(input.abilities, k.area);
@@ -122,7 +127,8 @@ export function composeDailySet(input: DailySetInput): DailySet {
 	const exam = input.examDate ? checkDay(input.examDate) : null;
 	const closeToExam = exam != null && daysBetween(day, exam) >= 0 && daysBetween(day, exam) <= s.noNewWithinDays;
 	let added = 0;
-	while (!closeToExam && added < s.maxNew && items.length < s.maxItems) {
+	// New skills only once every due review is in: reviews come first.
+	while (!full && !closeToExam && added < s.maxNew && items.length < s.maxItems) {
 		const open = unstarted.filter((k) => !chosen.has(k.id) && k.variants.length > 0 && predict(k) >= s.newFloor);
 		if (open.length === 0) break;
 		const areas = [...new Set(open.map((k) => k.area))].sort((a, b) => abilityOf(input.abilities, a) - abilityOf(input.abilities, b) || (a < b ? -1 : 1));

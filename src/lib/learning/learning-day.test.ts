@@ -13,7 +13,9 @@ describe('learning days', () => {
 		['2026-03-28', 'Europe/Berlin', '2026-03-28T03:00:00.000Z'], // 04:00 CET
 		['2026-03-29', 'Europe/Berlin', '2026-03-29T02:00:00.000Z'], // 04:00 CEST, after the change at 02:00 CET
 		['2026-07-01', 'UTC', '2026-07-01T04:00:00.000Z'],
-		['2026-07-01', 'Asia/Tokyo', '2026-06-30T19:00:00.000Z'] // JST is UTC+9 all year
+		['2026-07-01', 'Asia/Tokyo', '2026-06-30T19:00:00.000Z'], // JST is UTC+9 all year
+		['2026-07-01', 'Asia/Kolkata', '2026-06-30T22:30:00.000Z'], // IST is UTC+5:30
+		['2026-10-04', 'Australia/Sydney', '2026-10-03T17:00:00.000Z'] // AEDT (UTC+11) from 2026-10-04 02:00 local, first Sunday of October
 	])('%s in %s starts at %s', (day, zone, iso) => {
 		expect(learningDayStart(day, zone).toISOString()).toBe(iso);
 	});
