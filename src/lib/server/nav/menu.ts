@@ -8,6 +8,8 @@ type Entry = MenuItem & { roles: Role[] | 'signed-in' };
 const ENTRIES: Entry[] = [
 	{ href: '/home', label: 'Home', roles: 'signed-in' },
 	{ href: '/profile', label: 'Profile', roles: 'signed-in' },
+	{ href: '/author', label: 'Write items', roles: ['author'] },
+	{ href: '/review', label: 'Review', roles: ['reviewer'] },
 	{ href: '/admin/users', label: 'People and roles', roles: ['site_admin'] }
 ];
 
