@@ -251,7 +251,7 @@ function compileCandidates(ctx: CircuitCtx, src: ItemSource, ask: Extract<Ask, {
 		key: { kind: 'choose-all', choices: key },
 		distractors,
 		feedback: { state: null, fault: null, highlight: [], readings: {}, notes: [`the engine's candidates for the complaint: ${cands.join(', ')}`] },
-		keyText: key.join(', ')
+		keyText: key.map((k) => faultWords(ctx, k)).join('; ')
 	};
 }
 
@@ -449,7 +449,7 @@ export function compileItem(ctx: CircuitCtx, src: ItemSource): BuiltItem {
 		if (bad) throw new ItemError('stated_key', bad, 'correct the stated key (or the ask), or remove stated_key and let the engine key the item');
 	}
 	const why = comp.feedback.notes.join('; ');
-	const explanation = src.explanation.replace(/\{\{key\}\}/g, comp.keyText).replace(/\{\{why\}\}/g, why);
+	const explanation = src.explanation.replace(/\{\{key\}\}/g, comp.keyText).replace(why ? /\{\{why\}\}/g : /\s*\{\{why\}\}\.?/g, why);
 	const contentHash = hashText(
 		stableJson({ id: src.id, area: src.area, skill: src.skill, kind: src.kind, circuit: ctx.hash, ask: src.ask, tolerance: src.tolerance, tags: src.tags, stem: src.stem, explanation: src.explanation, stated: src.statedKey })
 	);

@@ -16,7 +16,7 @@ function lane(text: string, seed: number): number {
 	return 4294967296 * (2097151 & h2) + (h1 >>> 0);
 }
 
-/** A 26-hex-digit hash of the text. */
+/** A 26-hex-digit hash of the text (two lanes of different seeds). */
 export function hashText(text: string): string {
 	return lane(text, 0).toString(16).padStart(14, '0') + lane(text, 0x9e3779b9).toString(16).padStart(14, '0').slice(2);
 }
