@@ -20,6 +20,7 @@ export type Estimate = { value: number; count: number };
 export const ELO_ALPHA = 1;
 export const ELO_BETA = 0.05;
 
+/** The Elo step size after `count` answers. */
 export function eloStep(count: number): number {
 	return ELO_ALPHA / (1 + ELO_BETA * count);
 }

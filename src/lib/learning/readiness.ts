@@ -45,10 +45,7 @@ export function readiness(input: { abilities: Readonly<Record<string, Estimate |
 	return { probability: Math.min(1, probability), expectedScore: ps.reduce((a, b) => a + b, 0), passMark: mark, items: ps.length, cutScore: cut, label: 'estimate' };
 }
 
-/**
- * Split `n` items over areas by weight (largest remainder), each area's share spread evenly over its
- * skills: the expected mix of a full exam, for readiness before a particular exam is drawn.
- */
+/** Splits `n` items over the areas with a positive weight, in proportion, by largest remainder (ties by area id). */
 export function allocateByWeight(weights: Readonly<Record<string, number>>, n: number): Record<string, number> {
 	const areas = Object.keys(weights).filter((a) => weights[a] > 0);
 	const total = areas.reduce((s, a) => s + weights[a], 0);
@@ -64,6 +61,10 @@ export function allocateByWeight(weights: Readonly<Record<string, number>>, n: n
 	return out;
 }
 
+/**
+ * The expected mix of a full exam, for readiness before a particular exam is drawn: `n` items split over
+ * areas by weight, each area's share spread evenly over its skills. Throws if a weighted area has no skill.
+ */
 export function examMixFromWeights(weights: Readonly<Record<string, number>>, skills: readonly ExamItem[], n = 50): ExamItem[] {
 	const share = allocateByWeight(weights, n);
 	const out: ExamItem[] = [];

@@ -145,6 +145,7 @@ export function calibrateMemoryFactor(reviews: readonly ReviewRecord[], options:
 	return best.m;
 }
 
+/** A ts-fsrs Card as plain data (ISO dates). */
 export function toStoredCard(card: Card): StoredCard {
 	return {
 		due: card.due.toISOString(),
@@ -160,6 +161,7 @@ export function toStoredCard(card: Card): StoredCard {
 	};
 }
 
+/** The ts-fsrs Card of a stored card. */
 export function fromStoredCard(card: StoredCard): Card {
 	return {
 		...card,
