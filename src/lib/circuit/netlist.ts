@@ -136,6 +136,22 @@ export function compileNet(c: Circuit, state: string | null | undefined, lamp: s
 /** Compiled networks by circuit, then by state and lamp. A Net is never changed after it is built. */
 const netCache = new WeakMap<Circuit, Map<string, Net>>();
 
+/** What a circuit and all its faulted versions share: point nodes and part kinds (read-only). */
+const sharedByParts = new WeakMap<object, { pointNode: Int32Array; partKind: Uint8Array }>();
+
+function sharedOf(c: Circuit, nodeIdx: Map<string, number>): { pointNode: Int32Array; partKind: Uint8Array } {
+	let sh = sharedByParts.get(c.parts);
+	if (!sh) {
+		const pointNode = new Int32Array(c.points.length);
+		for (let q = 0; q < c.points.length; q++) pointNode[q] = nodeIdx.get(c.points[q].node)!;
+		const partKind = new Uint8Array(c.parts.length);
+		for (let i = 0; i < c.parts.length; i++) partKind[i] = partKindOf(c.parts[i]);
+		sh = { pointNode, partKind };
+		sharedByParts.set(c.parts, sh);
+	}
+	return sh;
+}
+
 /** Node name -> index for the file's own nodes (shared by a circuit and its faulted versions). */
 const fileNodeIndex = new WeakMap<readonly string[], Map<string, number>>();
 
@@ -289,7 +305,8 @@ function buildNet(c: Circuit, state: string | null | undefined, lamp: string | n
 		const p = c.parts[els[ei].part];
 		fuseRating[k] = FUSE_TYPES.has(p.type) ? p.rating! : Infinity;
 	});
-	const pointNode = Int32Array.from(c.points.map((p) => nodeIdx.get(p.node)!));
+	const shared = sharedOf(c, nodeIdx);
+	const pointNode = shared.pointNode;
 	const partEls: number[][] = c.parts.map(() => []);
 	for (let i = 0; i < ne; i++) if (els[i].part >= 0) partEls[els[i].part].push(i);
 	const fuseSlot = new Int32Array(ne).fill(-1);
@@ -302,8 +319,9 @@ function buildNet(c: Circuit, state: string | null | undefined, lamp: string | n
 		relayOfPart[relayPart[r]] = r;
 		for (const e of [relayNo[r], relayNc[r], relayCoil[r]]) if (e >= 0) relayOfEl[e] = r;
 	}
-	const partKind = Uint8Array.from(c.parts.map(partKindOf));
-	const seriesOfSource = Uint8Array.from(els.map((e) => (e.kind === 'source' && e.role === 'resistor' ? 1 : 0)));
+	const partKind = shared.partKind;
+	const seriesOfSource = new Uint8Array(ne);
+	for (let i = 0; i < ne; i++) if (els[i].kind === 'source' && els[i].role === 'resistor') seriesOfSource[i] = 1;
 	return {
 		partKind,
 		seriesOfSource,
@@ -327,9 +345,9 @@ function buildNet(c: Circuit, state: string | null | undefined, lamp: string | n
 		metered,
 		dormant,
 		baseParent,
-		fuses: Int32Array.from(fuses),
+		fuses: new Int32Array(fuses),
 		fuseRating,
-		relayPart: Int32Array.from(relayPart),
+		relayPart: new Int32Array(relayPart),
 		relayNo,
 		relayNc,
 		relayCoil,
@@ -339,8 +357,8 @@ function buildNet(c: Circuit, state: string | null | undefined, lamp: string | n
 		relayWelded,
 		pullInMv,
 		dropOutMv,
-		diodes: Int32Array.from(diodes),
-		sources: Int32Array.from(sources),
+		diodes: new Int32Array(diodes),
+		sources: new Int32Array(sources),
 		lampEl,
 		lampOhms
 	};

@@ -231,9 +231,9 @@ function currentPlan(s: Settled): CurrentPlan {
 	}
 	const plan: CurrentPlan = {
 		reachBase,
-		seeds: Int32Array.from(seeds),
-		meterRoots: Int32Array.from(meterRoots),
-		steps: Int32Array.from(steps),
+		seeds: new Int32Array(seeds),
+		meterRoots: new Int32Array(meterRoots),
+		steps: new Int32Array(steps),
 		cores
 	};
 	plans.set(w.root, plan);
