@@ -11,7 +11,7 @@ import { mockExam, response } from '../db/schema';
 import { itemForLearner, publishedItem, publishedItems, skillPrior, type ItemForLearner } from './catalog';
 import { LearnError } from './errors';
 import { abilitiesOf, ensureProfile, skillDifficulties } from './profile';
-import { findByKey, isDuplicate, recordAnswer } from './record';
+import { findByKey, isDuplicate, recordAnswer, type Q } from './record';
 import type { Learner } from './sets';
 
 /** Seconds after the end an answer sent before it may take to arrive. */
@@ -78,7 +78,7 @@ export async function startExam(db: Db, learner: Learner, opts: { count: number;
 	return row!;
 }
 
-async function answeredIds(db: Db, userId: string, examId: number): Promise<string[]> {
+async function answeredIds(db: Q, userId: string, examId: number): Promise<string[]> {
 	const rows = await db
 		.select({ itemId: response.itemId })
 		.from(response)
@@ -145,7 +145,8 @@ export async function answerExam(
 		await db.transaction(async (tx) => {
 			// Lock the exam row so two answers cannot both take the same position.
 			await tx.select({ id: mockExam.id }).from(mockExam).where(eq(mockExam.id, e.id)).for('update');
-			const done = await answeredIds(tx as unknown as Db, learner.id, e.id);
+			if (await findByKey(tx, learner.id, req.idempotencyKey)) return;
+			const done = await answeredIds(tx, learner.id, e.id);
 			if (entries[done.length]?.id !== req.itemId)
 				throw new LearnError('not_current', 'This is not the question your mock exam is on now. Reload the page to carry on.', 409, { itemId: 'not the current item' });
 			const it = await publishedItem(tx, req.itemId);

@@ -246,11 +246,14 @@ export async function answerInSet(db: Db, learner: Learner, req: AnswerRequest, 
 		return await db.transaction(async (tx) => {
 			const [set] = await tx.select().from(practiceSet).where(and(eq(practiceSet.id, req.setId), eq(practiceSet.userId, learner.id))).for('update');
 			if (!set) throw new LearnError('no_set', 'This set is not yours or no longer exists. Reload the page to get your current set.', 404, { setId: 'unknown set' });
+			// A twin request that held the lock first has recorded this answer: return its result.
+			const twin = await findByKey(tx, learner.id, req.idempotencyKey);
+			if (twin) return resultOf(tx, twin, true);
 			const entries = entriesOf(set);
 			const entry = entries[set.position];
 			if (!entry || entry.itemId !== req.itemId)
 				throw new LearnError('not_current', 'This is not the question your set is on now. Reload the page to carry on where you stopped.', 409, { itemId: 'not the current item' });
-			const it = await publishedItem(tx as unknown as Db, req.itemId);
+			const it = await publishedItem(tx, req.itemId);
 			if (!it) throw new LearnError('item_gone', 'This question has just been withdrawn. Reload the page for the next one.', 409);
 			const rec = await recordAnswer(tx, {
 				userId: learner.id,
