@@ -66,7 +66,11 @@ describe('placement', () => {
 		expect(set.finishedAt).not.toBeNull();
 		// Maximum Fisher information of a Rasch item is at p = 0.5 (Lord 1980, Applications of IRT, ch. 5);
 		// a choice item's guessing floor moves its best point up (Birnbaum 1968), hence the band's top.
-		for (const e of entries) expect(e.predictedSuccess).toBeGreaterThan(0.3), expect(e.predictedSuccess).toBeLessThan(0.8);
+		// Each area offers only its own skills' difficulties, so single items stray; the set centres near 50 %.
+		const mean = entries.reduce((s, e) => s + e.predictedSuccess, 0) / entries.length;
+		expect(mean).toBeGreaterThan(0.4);
+		expect(mean).toBeLessThan(0.65);
+		for (const e of entries) expect(e.predictedSuccess).toBeGreaterThan(0.15), expect(e.predictedSuccess).toBeLessThan(0.9);
 		// Balanced across areas: the first nine items come from nine different areas (one per area first).
 		expect(new Set(entries.slice(0, AREAS.length).map((e) => e.area)).size).toBe(AREAS.length);
 		const [profile] = await getDb().select().from(learnerProfile).where(eq(learnerProfile.userId, l.id));
