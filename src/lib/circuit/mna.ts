@@ -52,6 +52,8 @@ export type Work = {
 	srcOn: Uint8Array;
 	/** Element index of the source that closed a dead short, or -1. */
 	deadSource: number;
+	/** False when the arrays above are shared buffers, valid only until the next solve (do not cache by them). */
+	cacheable: boolean;
 };
 
 /** Shared scratch for the matrix: the engine is synchronous, and nothing keeps these after a solve. */
@@ -83,7 +85,8 @@ export function makeWork(net: Net): Work {
 		n: 0,
 		V: new Float64Array(nn),
 		srcOn: new Uint8Array(net.els.length),
-		deadSource: -1
+		deadSource: -1,
+		cacheable: true
 	};
 }
 
@@ -95,7 +98,28 @@ export function contactClosed(net: Net, cfg: Config, r: number, nc: boolean): bo
 }
 
 const structures = new WeakMap<Net, Map<number, Structure>>();
+/** Relay configurations of a network solved once so far (their structure was not kept). */
+const seenOnce = new WeakMap<Net, Set<number>>();
 let sparScratch = new Int32Array(0);
+let sParent = new Int32Array(0);
+let sRoot = new Int32Array(0);
+let sGOf = new Int32Array(0);
+let sFixedV = new Float64Array(0);
+let sSrcOn = new Uint8Array(0);
+let sRowOfSrc = new Int32Array(0);
+
+function ensureNodeScratch(nn: number, ne: number): void {
+	if (sParent.length < nn) {
+		sParent = new Int32Array(nn);
+		sRoot = new Int32Array(nn);
+		sGOf = new Int32Array(nn);
+		sFixedV = new Float64Array(nn);
+	}
+	if (sSrcOn.length < ne) {
+		sSrcOn = new Uint8Array(ne);
+		sRowOfSrc = new Int32Array(ne);
+	}
+}
 let spotScratch = new Float64Array(0);
 let tmpScratch = new Int32Array(0);
 
@@ -123,13 +147,20 @@ function conductive(c: number): boolean {
 	return c === Code.Resistor || c === Code.Coil || c === Code.Fuse || c === Code.Diode;
 }
 
-function buildStructure(net: Net, cfg: Config): Structure {
+/**
+ * Builds the structure of one relay configuration. With `scratch`, everything goes into shared
+ * buffers (nothing kept): a configuration solved once costs no lasting memory; the matrix is then
+ * built straight into the solve's own buffer.
+ */
+function buildStructure(net: Net, cfg: Config, scratch = false): Structure {
 	const nn = net.nNodes;
 	const code = net.code;
 	const ea = net.ea;
 	const eb = net.eb;
 	const ne = code.length;
-	const parent = net.baseParent.slice();
+	if (scratch) ensureNodeScratch(nn, ne);
+	const parent = scratch ? sParent.subarray(0, nn) : new Int32Array(nn);
+	parent.set(net.baseParent);
 	const nr = net.relayPart.length;
 	for (let r = 0; r < nr; r++) {
 		const no = net.relayNo[r];
@@ -137,8 +168,8 @@ function buildStructure(net: Net, cfg: Config): Structure {
 		if (no >= 0 && contactClosed(net, cfg, r, false)) unite(parent, ea[no], eb[no]);
 		if (nc >= 0 && contactClosed(net, cfg, r, true)) unite(parent, ea[nc], eb[nc]);
 	}
-	const root = new Int32Array(nn);
-	const gOf = new Int32Array(nn);
+	const root = scratch ? sRoot.subarray(0, nn) : new Int32Array(nn);
+	const gOf = scratch ? sGOf.subarray(0, nn) : new Int32Array(nn);
 	if (sparScratch.length < nn) {
 		sparScratch = new Int32Array(nn);
 		spotScratch = new Float64Array(nn);
@@ -153,9 +184,14 @@ function buildStructure(net: Net, cfg: Config): Structure {
 		spar[i] = i;
 	}
 	for (let d = 0; d < net.diodes.length; d++) gOf[net.emid[net.diodes[d]]] = -2;
-	const fixedV = new Float64Array(nn);
-	const srcOn = new Uint8Array(ne);
-	const rowOfSrc = new Int32Array(ne).fill(-1);
+	const fixedV = scratch ? sFixedV.subarray(0, nn) : new Float64Array(nn);
+	const srcOn = scratch ? sSrcOn.subarray(0, ne) : new Uint8Array(ne);
+	const rowOfSrc = scratch ? sRowOfSrc.subarray(0, ne) : new Int32Array(ne);
+	if (scratch) {
+		fixedV.fill(0);
+		srcOn.fill(0);
+	}
+	rowOfSrc.fill(-1);
 	const empty = new Float64Array(0);
 	const none = new Int32Array(0);
 	const s0: Structure = { dead: -1, parent, root, gOf, fixedV, srcOn, rowOfSrc, nv: 0, n: 0, baseA: empty, baseRhs: empty, first: none, last: none };
@@ -257,10 +293,24 @@ function buildStructure(net: Net, cfg: Config): Structure {
 	}
 	const n = nv + ns;
 	// the matrix of the fixed elements, and each row's span of nonzeros (fuses and diodes included)
-	const baseA = new Float64Array(n * n);
-	const baseRhs = new Float64Array(n);
-	const first = new Int32Array(n);
-	const last = new Int32Array(n);
+	let baseA: Float64Array;
+	let baseRhs: Float64Array;
+	let first: Int32Array;
+	let last: Int32Array;
+	if (scratch) {
+		ensureScratch(n);
+		baseA = A.subarray(0, n * n);
+		baseA.fill(0);
+		baseRhs = rhs.subarray(0, n);
+		baseRhs.fill(0);
+		first = spans.first;
+		last = spans.last;
+	} else {
+		baseA = new Float64Array(n * n);
+		baseRhs = new Float64Array(n);
+		first = new Int32Array(n);
+		last = new Int32Array(n);
+	}
 	for (let k = 0; k < n; k++) first[k] = last[k] = k;
 	const st: Structure = { dead: -1, parent, root, gOf, fixedV, srcOn, rowOfSrc, nv, n, baseA, baseRhs, first, last };
 	for (let i = 0; i < ne; i++) {
@@ -336,7 +386,19 @@ export function solveLinear(net: Net, cfg: Config, w: Work): boolean {
 	if (!byKey) structures.set(net, (byKey = new Map()));
 	const key = relayKey(cfg.relay);
 	let st = byKey.get(key);
-	if (!st) byKey.set(key, (st = buildStructure(net, cfg)));
+	let inPlace = false;
+	if (!st) {
+		// a configuration is kept from its second solve on; the first is solved in shared buffers
+		let seen = seenOnce.get(net);
+		if (!seen) seenOnce.set(net, (seen = new Set()));
+		if (seen.has(key)) byKey.set(key, (st = buildStructure(net, cfg)));
+		else {
+			seen.add(key);
+			st = buildStructure(net, cfg, true);
+			inPlace = true;
+		}
+	}
+	w.cacheable = !inPlace;
 	w.parent = st.parent;
 	w.root = st.root;
 	w.gOf = st.gOf;
@@ -348,10 +410,12 @@ export function solveLinear(net: Net, cfg: Config, w: Work): boolean {
 	w.nv = st.nv;
 	w.n = n;
 	ensureScratch(n);
-	A.set(st.baseA);
-	rhs.set(st.baseRhs);
-	spans.first.set(st.first);
-	spans.last.set(st.last);
+	if (!inPlace) {
+		A.set(st.baseA);
+		rhs.set(st.baseRhs);
+		spans.first.set(st.first);
+		spans.last.set(st.last);
+	}
 	const ea = net.ea;
 	const eb = net.eb;
 	const g = net.g;

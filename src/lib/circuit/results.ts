@@ -132,7 +132,7 @@ type CurrentPlan = {
 const plans = new WeakMap<Int32Array, CurrentPlan>();
 
 function currentPlan(s: Settled): CurrentPlan {
-	const hit = plans.get(s.work.root);
+	const hit = s.work.cacheable ? plans.get(s.work.root) : undefined;
 	if (hit) return hit;
 	const { net, cfg, work: w } = s;
 	const ne = net.els.length;
@@ -236,7 +236,7 @@ function currentPlan(s: Settled): CurrentPlan {
 		steps: new Int32Array(steps),
 		cores
 	};
-	plans.set(w.root, plan);
+	if (w.cacheable) plans.set(w.root, plan);
 	return plan;
 }
 
