@@ -215,3 +215,61 @@ export async function submitForReview(actor: Actor, itemId: string, db: Db = get
 		await tx.insert(review).values({ itemVersionId: row.versionId, reviewerId: actor.id, decision: 'submit' });
 	});
 }
+
+/** The key in words, for the preview and the review screen. */
+export function keySummary(key: BuiltItem['key'], question: BuiltItem['question']): string {
+	const label = (id: string) => ('options' in question ? question.options.find((o) => o.id === id)?.label : undefined) ?? id;
+	switch (key.kind) {
+		case 'numeric':
+			return `${key.value} ${key.unit} (within ±${key.tolerance} ${key.unit})${key.reads ? `, reads ${key.reads}` : ''}`;
+		case 'choose-one':
+			return label(key.choice);
+		case 'choose-all':
+			return key.choices.length ? key.choices.map(label).join('; ') : 'none of the options';
+		case 'select-diagram':
+			return key.elements.length ? key.elements.join(', ') : 'nothing to select';
+		case 'predict-works':
+			return Object.entries(key.loads)
+				.map(([l, s]) => `${l} ${s}`)
+				.join(', ');
+		case 'claim-check':
+			return key.verdicts.map((v, i) => `statement ${i + 1}: ${v ? 'true' : 'false'}`).join(', ');
+		case 'next-test':
+			return `measure ${key.point} in state ${key.state}`;
+	}
+}
+
+export type PreviewPayload = {
+	ok: boolean;
+	id: string | null;
+	kind: string | null;
+	stemHtml: string;
+	explanationHtml: string;
+	circuitText: string | null;
+	state: string | null;
+	svg: string | null;
+	key: string | null;
+	distractors: { tag: string; label: string }[];
+	cautions: string[];
+	errors: { line: number; message: string; fix: string }[];
+};
+
+/** The preview as the editor shows it: rendered (sanitized) stem, diagram, computed key, tagged distractors, errors. */
+export function previewPayload(source: string, expectedId?: string): PreviewPayload {
+	const p = previewMarkdown(source, expectedId);
+	const it = p.item;
+	return {
+		ok: !!it && p.errors.length === 0,
+		id: it?.id ?? null,
+		kind: it?.kind ?? null,
+		stemHtml: it?.stemHtml ?? '',
+		explanationHtml: it?.explanationHtml ?? '',
+		circuitText: it?.circuitText ?? null,
+		state: it?.feedback.state ?? null,
+		svg: it ? previewSvg(it) : null,
+		key: it ? keySummary(it.key, it.question) : null,
+		distractors: it ? it.distractors.map((d) => ({ tag: d.tag, label: d.label })) : [],
+		cautions: it ? it.cautions.map((c) => c.text) : [],
+		errors: p.errors.map((e) => ({ line: e.line, message: e.message, fix: e.fix }))
+	};
+}

@@ -268,7 +268,7 @@ export type FamilyReview = {
 	family: typeof itemFamily.$inferSelect;
 	items: number;
 	waiting: number;
-	sample: { id: string; kind: string; stemHtml: string; key: unknown; circuitText: string }[];
+	sample: { id: string; kind: string; stemHtml: string; key: unknown; question: unknown; circuitText: string }[];
 };
 
 /** A family with a sample of its variants (one item per kind, then the first few). */
@@ -276,7 +276,7 @@ export async function loadFamilyReview(familyId: string, db: Db = getDb()): Prom
 	const [family] = await db.select().from(itemFamily).where(eq(itemFamily.id, familyId));
 	if (!family) return null;
 	const rows = await db
-		.select({ id: item.id, kind: item.kind, stemHtml: itemVersion.stemHtml, key: itemVersion.key, circuitText: itemVersion.circuitText, status: itemVersion.status })
+		.select({ id: item.id, kind: item.kind, stemHtml: itemVersion.stemHtml, key: itemVersion.key, question: itemVersion.question, circuitText: itemVersion.circuitText, status: itemVersion.status })
 		.from(item)
 		.innerJoin(itemVersion, eq(itemVersion.id, item.latestVersionId))
 		.where(eq(item.familyId, familyId))
