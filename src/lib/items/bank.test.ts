@@ -254,11 +254,16 @@ describe('the demo bank', () => {
 		}
 	});
 
-	it('items on batteries carry the battery cautions', () => {
+	it('items on batteries and airbag circuits carry their cautions; others none', () => {
 		const battery = bank.items.filter((i) => i.area === 'battery-starting' || i.area === 'charging');
 		expect(battery.length).toBeGreaterThan(0);
 		// reference-values.md, "Safety cautions": CCOHS, OSH Answers, "Battery charging"
 		for (const it of battery) expect(it.cautions.map((c) => c.id)).toEqual(expect.arrayContaining(['hydrogen', 'jewellery', 'ground-first']));
+		// reference-values.md, "Safety cautions": airbag circuits are never probed with a test lamp or ordinary meter
+		const airbag = bank.items.filter((i) => i.tags.includes('airbag'));
+		expect(airbag.length).toBeGreaterThan(0);
+		for (const it of airbag) expect(it.cautions.map((c) => c.id)).toContain('airbag');
+		for (const it of bank.items.filter((i) => i.area === 'lighting-signalling' && i.tags.length === 0)) expect(it.cautions).toEqual([]);
 	});
 
 	it('is deterministic: the same seed gives the same ids, versions and keys; another seed gives other variants', () => {
