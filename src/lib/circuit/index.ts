@@ -26,3 +26,4 @@ export { diagnose } from './diagnose';
 export { explainSolve } from './explain';
 export type { Explanation, DropExplanation, PointExplanation, FuseExplanation, RelayExplanation, PathExplanation } from './explain';
 export type { SettleEvent } from './settle';
+export { meterReading } from './readings';

@@ -3,7 +3,7 @@
  * Expected values are hand calculations or rules of the trade marked "common practice".
  */
 import { describe, expect, it } from 'vitest';
-import { explainSolve, parseCircuit, solveCircuit, type SolveResult } from './index';
+import { explainSolve, meterReading, parseCircuit, solveCircuit, type SolveResult } from './index';
 import { LAMP_RELAY } from './test-fixtures';
 
 const c = parseCircuit(LAMP_RELAY);
@@ -97,5 +97,38 @@ describe('explainSolve', () => {
 		expect(x.paths).toEqual([
 			{ through: 'L1', elements: ['F1', 'K1.contact', 'L1', 'G1', 'W1', 'W5', 'W6', 'W7'], text: expect.stringContaining('L1 (on') }
 		]);
+	});
+});
+
+describe('meterReading (two leads)', () => {
+	it('reads the drops of a series circuit (OpenStax College Physics Example 21.1)', () => {
+		// 12.0 V; 1.00, 6.00, 13.0 Ω in series: 0.600 A; drops 0.600, 3.60, 7.80 V
+		const series = parseCircuit(`supply: 12
+parts:
+  R1: { type: resistor, ohms: 1 }
+  R2: { type: resistor, ohms: 6 }
+  R3: { type: resistor, ohms: 13 }
+wires:
+  - B+ R1.1
+  - R1.2 R2.1
+  - R2.2 R3.1
+  - R3.2 GND
+points:
+  A: R2.1
+  B: R2.2
+`);
+		const r = solveCircuit(series) as SolveResult;
+		expect(meterReading(r, 'B+', 'A')).toBeCloseTo(0.6, 3);
+		expect(meterReading(r, 'A', 'B')).toBeCloseTo(3.6, 3);
+		expect(meterReading(r, 'B', 'GND')).toBeCloseTo(7.8, 3);
+		// leads the other way round read negative
+		expect(meterReading(r, 'B', 'A')).toBeCloseTo(-3.6, 3);
+		expect(() => meterReading(r, 'Q', 'GND')).toThrow(/red lead's "Q"/);
+	});
+	it('reads the voltage drop of a lamp ground across the open ground wire as source volts (common practice)', () => {
+		// with the lamp's ground wire broken no current flows: L1.2 rises to source volts, so a meter
+		// from L1.2 to the ground point reads the whole 12.6 V
+		const r = solve({ state: 'on', fault: 'open:W7' });
+		expect(meterReading(r, 'C', 'G1')).toBeCloseTo(12.6, 3);
 	});
 });
