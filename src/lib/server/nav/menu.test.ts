@@ -6,10 +6,10 @@ describe('menuFor', () => {
 	it('shows nothing to an anonymous visitor', () => expect(menuFor(null)).toEqual([]));
 
 	it('shows a learner their own pages only', () => {
-		expect(menuFor(['learner']).map((m) => m.href)).toEqual(['/home', '/profile']);
+		expect(menuFor(['learner']).map((m) => m.href)).toEqual(['/home', '/learn', '/progress', '/exam', '/bench', '/profile']);
 	});
 
 	it('adds people and roles for a site admin', () => {
-		expect(menuFor(['learner', 'site_admin']).map((m) => m.href)).toEqual(['/home', '/profile', '/admin/users']);
+		expect(menuFor(['learner', 'site_admin']).map((m) => m.href)).toEqual(['/home', '/learn', '/progress', '/exam', '/bench', '/profile', '/admin/users']);
 	});
 });

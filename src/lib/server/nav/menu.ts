@@ -7,6 +7,10 @@ type Entry = MenuItem & { roles: Role[] | 'signed-in' };
 // The pages a person sees in the navigation; each page's own guard enforces the same roles.
 const ENTRIES: Entry[] = [
 	{ href: '/home', label: 'Home', roles: 'signed-in' },
+	{ href: '/learn', label: 'Practice', roles: ['learner'] },
+	{ href: '/progress', label: 'Progress', roles: ['learner'] },
+	{ href: '/exam', label: 'Mock exam', roles: ['learner'] },
+	{ href: '/bench', label: 'Bench', roles: ['learner', 'instructor', 'author'] },
 	{ href: '/profile', label: 'Profile', roles: 'signed-in' },
 	{ href: '/author', label: 'Write items', roles: ['author'] },
 	{ href: '/review', label: 'Review', roles: ['reviewer'] },
