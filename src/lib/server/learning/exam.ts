@@ -16,6 +16,7 @@ import type { Learner } from './sets';
 
 /** Seconds after the end an answer sent before it may take to arrive. */
 export const GRACE_SECONDS = 5;
+export const MOCK_DEFAULTS = { count: 50, minutes: 60 };
 export const WEIGHTS: Record<string, number> = Object.fromEntries(AREAS.map((a) => [a.id, a.weight]));
 
 type ExamRow = typeof mockExam.$inferSelect;
