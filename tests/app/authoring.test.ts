@@ -1,0 +1,105 @@
+// The authoring and review workflow in Chromium: the demo author writes an item, previews the engine's
+// key, saves and submits it; the demo reviewer finds it in the queue and approves it; it is published.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { mkdirSync } from 'node:fs';
+import { randomBytes } from 'node:crypto';
+import type { BrowserContext, Page } from 'playwright-core';
+import { APP_URL } from '../helpers/app';
+import { launchBrowser, openPage } from '../helpers/browser';
+import { DEMO_PASSWORD } from '../../src/lib/server/seed/demo';
+
+const SHOTS = 'screenshots';
+const DESKTOP = { width: 1280, height: 800 };
+const PHONE = { width: 360, height: 780 };
+
+let context: BrowserContext;
+let close: () => Promise<void>;
+
+beforeAll(async () => {
+	mkdirSync(SHOTS, { recursive: true });
+	({ context, close } = await launchBrowser());
+});
+afterAll(async () => close?.());
+
+async function shoot(page: Page, name: string) {
+	for (const [label, size] of [['desktop', DESKTOP], ['phone', PHONE]] as const) {
+		await page.setViewportSize(size);
+		await page.screenshot({ path: `${SHOTS}/${name}-${label}.png`, fullPage: true });
+	}
+	await page.setViewportSize(DESKTOP);
+}
+
+async function signIn(page: Page, email: string) {
+	await context.clearCookies();
+	await openPage(page, `${APP_URL}/signin`);
+	await page.getByLabel('E-mail').fill(email);
+	await page.getByLabel('Password').fill(DEMO_PASSWORD);
+	await page.getByRole('button', { name: 'Sign in' }).click();
+	await page.waitForURL((u) => !u.pathname.startsWith('/signin'));
+}
+
+const id = `browser-${randomBytes(3).toString('hex')}`;
+// cooling-fan-relay.yaml with S1 open (cold): no coil current, no drop across the coil, so point B reads
+// the battery's 12.6 V (docs/item-format.md's hand-worked example; common practice).
+const source = `---
+id: ${id}
+area: diagrams-paths
+skill: point-readings
+kind: numeric
+circuit: content/circuits/cooling-fan-relay.yaml
+ask: { volts: B, state: cold }
+---
+With the engine cold, what does a meter read from point B to ground?
+
+## Explanation
+
+With the temperature switch open no current flows through the coil, so B sits at battery volts.
+`;
+
+describe('writing and reviewing an item (Chromium)', () => {
+	it('the author writes, previews, saves and submits; the reviewer approves; the item is published', async () => {
+		const page = await context.newPage();
+		await signIn(page, 'author@harrowcreek.example');
+		await openPage(page, `${APP_URL}/author`);
+		await page.getByRole('link', { name: 'New item' }).click();
+		await page.waitForURL(`${APP_URL}/author/items/new`);
+		await page.waitForSelector('.cm-content');
+		const key = page.getByTestId('preview-key');
+		// The template asks for point C with the fan running; its key is not 12.6 V.
+		await expect.poll(() => key.textContent()).not.toContain('12.6 V');
+
+		await page.locator('.cm-content').click();
+		await page.keyboard.press('ControlOrMeta+a');
+		await page.keyboard.press('Delete');
+		await page.keyboard.insertText(source);
+		await expect.poll(() => key.textContent(), { timeout: 15_000 }).toContain('12.6 V');
+		await expect.poll(() => page.locator('.item-preview').textContent()).toContain(id);
+		await shoot(page, 'item-editor');
+
+		await page.getByRole('button', { name: 'Save draft' }).click();
+		await page.waitForURL(`${APP_URL}/author/items/${id}?saved=1`);
+		await expect.poll(() => page.getByTestId('item-status').textContent()).toBe('draft');
+		await page.getByRole('button', { name: 'Submit for review' }).click();
+		await page.waitForURL(`${APP_URL}/author/items/${id}?submitted=1`);
+		await expect.poll(() => page.getByTestId('item-status').textContent()).toBe('in review');
+
+		await signIn(page, 'reviewer@harrowcreek.example');
+		await openPage(page, `${APP_URL}/review`);
+		const queued = page.locator(`[data-item="${id}"]`);
+		await expect.poll(() => queued.count()).toBe(1);
+		await shoot(page, 'review-queue');
+		await queued.getByRole('link', { name: id }).click();
+		await page.waitForURL(`${APP_URL}/review/items/${id}`);
+		await expect.poll(() => page.getByTestId('key-check').textContent()).toContain('it matches');
+		await page.getByRole('button', { name: 'Approve and publish' }).click();
+		await page.waitForURL(`${APP_URL}/review`);
+		await expect.poll(() => page.locator(`[data-item="${id}"]`).count()).toBe(0);
+
+		await openPage(page, `${APP_URL}/review/items/${id}`);
+		await expect.poll(() => page.getByTestId('version-status').textContent()).toBe('published');
+		await signIn(page, 'author@harrowcreek.example');
+		await openPage(page, `${APP_URL}/author?status=published`);
+		await expect.poll(() => page.locator(`[data-item="${id}"] [data-status]`).getAttribute('data-status')).toBe('published');
+		await page.close();
+	});
+});
