@@ -5,7 +5,11 @@
  * OWASP XSS Filter Evasion Cheat Sheet.
  */
 import { describe, expect, it } from 'vitest';
-import { isAllowListed, renderMarkdown, sanitizeHtml } from './render';
+import { FAMILIES } from './families';
+import { FORMS, draftItems } from './families/forms';
+import { circuitCtx } from './engine';
+import { isAllowListed, markdownHtml, renderMarkdown, sanitizeHtml } from './render';
+import { makeRng } from './rng';
 
 const PAYLOADS: [string, string][] = [
 	['script tag', '<script>alert(1)</script>'],
@@ -56,6 +60,37 @@ describe('rendering item markdown', () => {
 		expect(html).toContain('<a href="https://example.org/spec">spec</a>');
 		expect(isAllowListed(html)).toBe(true);
 		expect(sanitizeHtml(html).trim()).toBe(html);
+	});
+
+	it('the one-line shortcut gives the HTML of marked’s full pass, for every form’s stems and explanations and for edge cases', () => {
+		const texts = [
+			'Plain text.',
+			'**bold** and *em* and `code` and [a link](https://example.org) and a_b_c and 2 * 3 * 4',
+			'1. a list?',
+			'- a list',
+			'> a quote',
+			'    indented code',
+			'<b>raw</b> html',
+			'[ref]: https://example.org',
+			'| a | b |',
+			'***',
+			'Ends with two spaces  ',
+			'Tom & Jerry < 5 > 3 "quoted" it’s'
+		];
+		const cache = new Map();
+		for (const f of FAMILIES) {
+			const v = f.variant(makeRng(`render|${f.id}`), 0);
+			const ctx = circuitCtx(cache, v.circuit);
+			for (const form of FORMS) {
+				let n = 0;
+				for (const d of draftItems(f, v, ctx, form.id, makeRng(`render|${f.id}|${form.id}`), makeRng(`render|${f.id}|c`))) {
+					texts.push(d.stem, d.explanation);
+					if (++n >= 2) break;
+				}
+			}
+		}
+		expect(texts.length).toBeGreaterThan(200);
+		for (const t of texts) expect(markdownHtml(t), t).toBe(markdownHtml(t, false));
 	});
 
 	it('demotes page-level headings', () => {

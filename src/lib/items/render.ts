@@ -64,13 +64,27 @@ function balancedAngles(html: string): boolean {
 	return html.split('>').length === html.split('<').length;
 }
 
+/** Text that can only be one paragraph: one line, starting with nothing that opens a block. */
+const BLOCK_START = /^(?:\s|[#>*+\-=_|`~<[!]|\d+[.)])/;
+
+function markdownToHtml(md: string, oneLineFast: boolean): string {
+	const demoted = md.replace(/^(#{1,2})(?=\s)/gm, '###');
+	// a one-line paragraph renders as <p> around its inline markdown: the same HTML, without the block pass
+	if (oneLineFast && demoted && !demoted.includes('\n') && !BLOCK_START.test(demoted)) return `<p>${marked.parseInline(demoted, { async: false }) as string}</p>`;
+	return (marked.parse(demoted, { async: false }) as string).trim();
+}
+
 /**
  * Renders item markdown to sanitized HTML. Headings `#` and `##` are demoted to `###`, since an item
  * sits inside a page that has its own. Never throws on any text.
  */
 export function renderMarkdown(md: string, sanitize: Sanitize = sanitizeHtml): string {
-	const demoted = md.replace(/^(#{1,2})(?=\s)/gm, '###');
-	const html = (marked.parse(demoted, { async: false }) as string).trim();
+	const html = markdownToHtml(md, true);
 	if (sanitize === sanitizeHtml && isAllowListed(html)) return html;
 	return sanitize(html).trim();
+}
+
+/** The HTML marked makes of item markdown, before sanitizing, with or without the one-line shortcut (for tests). */
+export function markdownHtml(md: string, oneLineFast = true): string {
+	return markdownToHtml(md, oneLineFast);
 }
