@@ -284,3 +284,36 @@ export async function answerInSet(db: Db, learner: Learner, req: AnswerRequest, 
 		throw e;
 	}
 }
+
+/** A practice item of one skill (from the progress page's weakest skills): a variant other than the last one seen. */
+export async function practiceItem(db: Db, learner: Learner, skill: string): Promise<NextItem> {
+	const all = (await publishedItems(db)).filter((i) => i.skill === skill);
+	if (all.length === 0) throw new LearnError('unknown_skill', `There are no published questions for the skill "${skill}". Pick a skill from your progress page.`, 404, { skill: 'unknown skill' });
+	const { lastVariant } = await cardsOf(db, learner.id);
+	const fresh = all.filter((i) => i.id !== lastVariant[skill]);
+	const pick = (fresh.length ? fresh : all)[Math.floor(Math.random() * (fresh.length || all.length))];
+	const it = await publishedItem(db, pick.id);
+	if (!it) throw new LearnError('item_gone', 'This question has just been withdrawn. Reload the page for another one.', 409);
+	return { phase: 'daily', setId: null, position: 0, total: 0, item: itemForLearner(it), entry: { kind: 'review', reason: `extra practice of ${skill}` }, message: null };
+}
+
+/** Grades and records a practice answer (outside any set). Idempotent by key like every answer. */
+export async function answerPractice(db: Db, learner: Learner, req: Omit<AnswerRequest, 'setId'>, now = new Date()): Promise<AnswerResult> {
+	const earlier = await findByKey(db, learner.id, req.idempotencyKey);
+	if (earlier) return resultOf(db, earlier, true);
+	const profile = await ensureProfile(db, learner.id);
+	const it = await publishedItem(db, req.itemId);
+	if (!it) throw new LearnError('item_gone', 'This question is not published. Reload the page for another one.', 404, { itemId: 'not a published item' });
+	try {
+		return await db.transaction(async (tx) => {
+			const rec = await recordAnswer(tx, { userId: learner.id, timeZone: learner.timeZone, examDate: profile.examDate, item: it, answer: req.answer, ms: req.ms, idempotencyKey: req.idempotencyKey, context: 'practice', contextId: null, now });
+			return resultOf(tx, { id: rec.responseId, itemVersionId: it.versionId, answer: req.answer, score: rec.score, correct: rec.correct }, false);
+		});
+	} catch (e) {
+		if (isDuplicate(e)) {
+			const first = await findByKey(db, learner.id, req.idempotencyKey);
+			if (first) return resultOf(db, first, true);
+		}
+		throw e;
+	}
+}
