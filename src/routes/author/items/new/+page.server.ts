@@ -17,7 +17,7 @@ async function saveFrom(me: { id: string; roles: string[] }, source: string) {
 	} catch (e) {
 		return authoringFailure(e, source);
 	}
-	redirect(303, `/author/items/${id}`);
+	redirect(303, `/author/items/${id}?saved=1`);
 }
 
 export const actions: Actions = {
