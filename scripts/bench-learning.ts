@@ -20,6 +20,7 @@ import {
 	addDays,
 	assembleMockExam,
 	calibrateMemoryFactor,
+	calibrateSuccessOffset,
 	composeDailySet,
 	learningDayStart,
 	makeRng,
@@ -32,6 +33,7 @@ import {
 	updateAbility,
 	updateDifficulty,
 	type Estimate,
+	type FirstAnswer,
 	type PlacementCandidate,
 	type PlacementResponse,
 	type ReviewRecord,
@@ -72,8 +74,17 @@ const OURS = { maxItems: 40, maxMinutes: 30, maxNew: 4, ...JSON.parse(process.en
 /** Overrides of the scheduler's retention settings for tuning runs (defaults: those of schedule.ts). */
 const RETENTION = { ...JSON.parse(process.env.BENCH_RETENTION ?? '{}') };
 
-/** BENCH_CALIBRATE=1 turns on the per-learner memory factor (off: it did not help on this model, docs/learning.md). */
-const CALIBRATE = process.env.BENCH_CALIBRATE === '1';
+/**
+ * BENCH_CALIBRATE=1 turns on the per-learner memory factor (off: it did not help on this model, docs/learning.md);
+ * BENCH_CALIBRATE=fit fits it with a free ceiling k (calibrateMemoryFactor's fitCeiling).
+ */
+const CALIBRATE = process.env.BENCH_CALIBRATE === '1' || process.env.BENCH_CALIBRATE === 'fit';
+const FIT_CEILING = process.env.BENCH_CALIBRATE === 'fit';
+/**
+ * New-skill success offset (calibrateSuccessOffset) from first answers: 'population' (all learners' first
+ * answers so far, as the server can read them from its response history), 'learner' (this learner's own) or 'off'.
+ */
+const OFFSET = (process.env.BENCH_OFFSET ?? 'population') as 'population' | 'learner' | 'off';
 const LEARNERS = Number(process.env.BENCH_LEARNERS ?? 300);
 const DAYS = 60;
 const AREAS = ['meters', 'diagrams', 'distribution', 'starting', 'charging', 'lighting', 'body', 'sensors', 'strategy'];
@@ -218,7 +229,7 @@ function placementComparison(pool: PoolSkill[], seed: number): { ours: number; r
 type Tally = { right: number; answers: number; byKind: Record<'review' | 'new', { n: number; right: number; predicted: number; recall: number; ceiling: number }> };
 type ArmResult = { retention: number; reviews: number; introduced: Map<string, number> };
 
-function runOurs(pool: PoolSkill[], learner: Learner, zone: string, seed: string, difficulty: Map<string, Estimate>, tally: Tally) {
+function runOurs(pool: PoolSkill[], learner: Learner, zone: string, seed: string, difficulty: Map<string, Estimate>, tally: Tally, population: FirstAnswer[]) {
 	const rng = makeRng(`${seed}:answers`);
 	const examDate = addDays(START_DAY, DAYS);
 	const cards: Record<string, StoredCard> = {};
@@ -228,6 +239,7 @@ function runOurs(pool: PoolSkill[], learner: Learner, zone: string, seed: string
 	let reviews = 0;
 	const history: ReviewRecord[] = [];
 	let memoryFactor = 1;
+	const mineFirst: FirstAnswer[] = [];
 
 	// Day 0: placement (no feedback, so no study), then abilities per area.
 	const responses: PlacementResponse[] = [];
@@ -243,9 +255,10 @@ function runOurs(pool: PoolSkill[], learner: Learner, zone: string, seed: string
 
 	for (let day = 1; day < DAYS; day++) {
 		const now = sessionInstant(day, zone);
-		if (CALIBRATE && day % 7 === 0) memoryFactor = calibrateMemoryFactor(history);
+		if (CALIBRATE && day % 7 === 0) memoryFactor = calibrateMemoryFactor(history, { fitCeiling: FIT_CEILING });
 		const skills: SkillInfo[] = pool.map((s) => ({ id: s.id, area: s.area, difficulty: difficulty.get(s.id)!.value, guess: s.choice ? MODEL.GUESS : 0, variants: s.variants.map((v) => ({ id: v.id, medianSeconds: MEDIAN_SECONDS })) }));
-		const set = composeDailySet({ now, timeZone: zone, skills, cards, lastVariant, abilities, examDate, settings: OURS, seed: `${seed}:${day}` });
+		const successOffset = OFFSET === 'off' ? 0 : calibrateSuccessOffset(OFFSET === 'learner' ? mineFirst : population);
+		const set = composeDailySet({ now, timeZone: zone, skills, cards, lastVariant, abilities, examDate, settings: OURS, seed: `${seed}:${day}`, successOffset });
 		for (const item of set.items) {
 			const skill = pool.find((s) => s.id === item.skillId)!;
 			const t = day + SESSION_OFFSET;
@@ -272,6 +285,7 @@ function runOurs(pool: PoolSkill[], learner: Learner, zone: string, seed: string
 			const a = abilities[skill.area];
 			const d = difficulty.get(skill.id)!;
 			const g = skill.choice ? MODEL.GUESS : 0;
+			if (item.kind === 'new') for (const list of [mineFirst, population]) list.push({ ability: a.value, difficulty: d.value, guess: g, correct: out.correct });
 			abilities[skill.area] = updateAbility(a, d.value, out.correct, g);
 			difficulty.set(skill.id, updateDifficulty(d, a.value, out.correct, g));
 		}
@@ -318,6 +332,7 @@ function main() {
 	const difficulty = new Map(pool.map((s) => [s.id, priorDifficulty(s.prior)]));
 	const tally: Tally = { right: 0, answers: 0, byKind: { review: { n: 0, right: 0, predicted: 0, recall: 0, ceiling: 0 }, new: { n: 0, right: 0, predicted: 0, recall: 0, ceiling: 0 } } };
 	const ret = { ours: [] as number[], fixed: [] as number[] };
+	const population: FirstAnswer[] = [];
 	let reviewsOurs = 0;
 	let reviewsFixed = 0;
 	let brier = 0;
@@ -329,7 +344,7 @@ function main() {
 			return new Learner(r, MODEL.ABILITY_SD * normal(r));
 		};
 		const mine = make();
-		const o = runOurs(pool, mine, zone, `${seed}:${i}`, difficulty, tally);
+		const o = runOurs(pool, mine, zone, `${seed}:${i}`, difficulty, tally, population);
 		const f = runFixed(pool, make(), `${seed}:${i}`, o.introduced);
 		ret.ours.push(o.retention);
 		ret.fixed.push(f.retention);

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { composeDailySet, type DailySetInput, type SkillInfo } from './daily-set';
+import { calibrateSuccessOffset, composeDailySet, type DailySetInput, type FirstAnswer, type SkillInfo } from './daily-set';
+import { makeRng } from './rng';
 import { newCard, type StoredCard } from './schedule';
 
 // Rasch success σ(θ − b) written out here, independently of rasch.ts (Rasch 1960).
@@ -113,5 +114,44 @@ describe('composeDailySet', () => {
 
 	it('is deterministic for a seed', () => {
 		expect(composeDailySet(input({ seed: 'x' }))).toEqual(composeDailySet(input({ seed: 'x' })));
+	});
+});
+
+describe('new-skill success offset', () => {
+	it('shifts the prediction of new skills by the offset and picks the skill inside the band under it', () => {
+		// δ = −0.5 in wiring (θ = −0.5): splice-reading σ(−1.0 + 2.4) = σ(1.4) = 0.802 is now inside 80–85 %,
+		// ground-paths σ(1.1) = 0.750 falls below it (still at the 75 % floor), open-location stays out.
+		const set = composeDailySet(input({ successOffset: -0.5 }));
+		const fresh = set.items.filter((i) => i.kind === 'new');
+		expect(fresh[0].skillId).toBe('splice-reading');
+		expect(fresh[0].predictedSuccess).toBeCloseTo(rasch(-1, -2.4), 12); // 0.802184
+		expect(fresh[0].reason).toMatch(/inside the 80 %–85 % band/);
+		expect(fresh.some((i) => i.skillId === 'open-location')).toBe(false);
+		// The default (no offset) is the plain Rasch prediction: ground-paths first, as above.
+		expect(composeDailySet(input()).items.find((i) => i.kind === 'new')!.skillId).toBe('ground-paths');
+		expect(() => composeDailySet(input({ successOffset: Number.NaN }))).toThrow(/success offset must be a finite number/);
+	});
+
+	it('solves the MAP offset by hand: one right answer at θ = b with a N(0, 1) prior gives δ = 1 − σ(δ), δ ≈ 0.401058', () => {
+		// Fixed point of the score equation −δ + (1 − σ(δ)) = 0 (Rasch 1960 likelihood, normal prior).
+		expect(calibrateSuccessOffset([{ ability: 0.7, difficulty: 0.7, correct: true }], { priorSd: 1, minAnswers: 1 })).toBeCloseTo(0.401058, 5);
+		expect(calibrateSuccessOffset([{ ability: 0.7, difficulty: 0.7, correct: true }])).toBe(0); // fewer than 20 answers
+	});
+
+	it('recovers an overstated ability: first answers drawn 0.6 logit below the estimate, with a 1-in-4 guess on some (Birnbaum 1968 model)', () => {
+		const rng = makeRng(5);
+		const answers: FirstAnswer[] = Array.from({ length: 2000 }, () => {
+			const ability = 3 * rng.next() - 1.5;
+			const difficulty = ability - 2 + 2 * rng.next();
+			const guess = rng.next() < 0.6 ? 0.25 : 0;
+			const p = guess + (1 - guess) * rasch(ability - 0.6, difficulty);
+			return { ability, difficulty, guess, correct: rng.next() < p };
+		});
+		const delta = calibrateSuccessOffset(answers, { window: 2000 });
+		// With 2000 answers the standard error is about 0.07 logit; a fit ignoring the guess would land far off.
+		expect(delta).toBeGreaterThan(-0.8);
+		expect(delta).toBeLessThan(-0.4);
+		const noGuess = calibrateSuccessOffset(answers.map((a) => ({ ...a, guess: 0 })), { window: 2000 });
+		expect(noGuess).toBeGreaterThan(-0.4);
 	});
 });

@@ -3,7 +3,7 @@
  * learner's weakest content area at a difficulty where the predicted success is 80–85 %.
  */
 import { makeRng, type Rng } from './rng';
-import { abilityOf, pWithGuess, type Estimate } from './rasch';
+import { abilityOf, mapAbility, pWithGuess, type Estimate } from './rasch';
 import { checkDay, daysBetween, learningDay, toMs } from './learning-day';
 import { predictedRetention, type StoredCard } from './schedule';
 
@@ -43,7 +43,37 @@ export type DailySetInput = {
 	examDate?: string | null;
 	settings?: Partial<DailySettings>;
 	seed: number | string;
+	/**
+	 * Logit shift added to the Rasch prediction of a new (never answered) skill, from
+	 * calibrateSuccessOffset over earlier first answers; 0 (the default) leaves the prediction as it is.
+	 */
+	successOffset?: number;
 };
+
+/** A first answer on a skill with what was known before it: the area ability and the skill difficulty then. */
+export type FirstAnswer = { ability: number; difficulty: number; guess?: number; correct: boolean };
+
+/** The prior spread (logits) of the new-skill offset, and the answers below which it stays 0. */
+export const OFFSET_PRIOR_SD = 0.5;
+export const OFFSET_MIN_ANSWERS = 20;
+
+/**
+ * The logit offset δ that makes first answers on new skills match their prediction:
+ * P(right) = g + (1 − g)·σ(θ − b + δ), θ and b the estimates before the answer. δ is the maximum a
+ * posteriori value with a N(0, priorSd²) prior (the same Newton solver as mapAbility: δ plays the
+ * learner's part against items of difficulty b − θ). The Elo ability also moves on review answers,
+ * which are helped by earlier study, so it overstates the chance of a first answer; δ corrects that.
+ * With fewer than `minAnswers` answers it is 0.
+ */
+export function calibrateSuccessOffset(answers: readonly FirstAnswer[], options: { priorSd?: number; minAnswers?: number; window?: number } = {}): number {
+	const { priorSd = OFFSET_PRIOR_SD, minAnswers = OFFSET_MIN_ANSWERS, window = 300 } = options;
+	if (answers.length < minAnswers) return 0;
+	return mapAbility(
+		answers.slice(-window).map((a) => ({ difficulty: a.difficulty - a.ability, correct: a.correct, guess: a.guess ?? 0 })),
+		0,
+		priorSd
+	);
+}
 
 export type DailyItem = {
 	itemId: string;
@@ -123,7 +153,9 @@ export function composeDailySet(input: DailySetInput): DailySet {
 
 	const unstarted = input.skills.filter((k) => !input.cards[k.id]);
 	const chosen = new Set<string>();
-	const predict = (k: SkillInfo) => pWithGuess(abilityOf(input.abilities, k.area), k.difficulty, k.guess ?? 0);
+	const offset = input.successOffset ?? 0;
+	if (!Number.isFinite(offset)) throw new RangeError(`The success offset must be a finite number of logits (got ${offset}).`);
+	const predict = (k: SkillInfo) => pWithGuess(abilityOf(input.abilities, k.area) + offset, k.difficulty, k.guess ?? 0);
 	const exam = input.examDate ? checkDay(input.examDate) : null;
 	const closeToExam = exam != null && daysBetween(day, exam) >= 0 && daysBetween(day, exam) <= s.noNewWithinDays;
 	let added = 0;

@@ -48,11 +48,13 @@ describe('scheduleReview', () => {
 	});
 
 	it('raises the desired retention linearly over the 21 days before the exam (our rule, docs/learning.md)', () => {
-		// 0.90 + (0.95 − 0.90)·(1 − 7/21) = 0.933333
-		expect(desiredRetention(7)).toBeCloseTo(0.933333, 6);
-		expect(desiredRetention(30)).toBe(0.9);
-		expect(desiredRetention(null)).toBe(0.9);
-		expect(desiredRetention(1)).toBeCloseTo(0.9 + 0.05 * (20 / 21), 12);
+		// 0.92 + (0.95 − 0.92)·(1 − 7/21) = 0.94
+		expect(desiredRetention(7)).toBeCloseTo(0.94, 12);
+		expect(desiredRetention(30)).toBe(0.92);
+		expect(desiredRetention(null)).toBe(0.92);
+		expect(desiredRetention(1)).toBeCloseTo(0.92 + 0.03 * (20 / 21), 12);
+		// With the base given, the same ramp from it: 0.90 + (0.95 − 0.90)·(1 − 7/21) = 0.933333.
+		expect(desiredRetention(7, 0.9)).toBeCloseTo(0.933333, 6);
 	});
 
 	const mature: StoredCard = {

@@ -41,7 +41,7 @@ export function rateAnswer(answer: { correct: boolean; seconds?: number | null; 
 }
 
 /** Desired retention far from the exam, at the exam, and the number of days over which it rises. */
-export const BASE_RETENTION = 0.9;
+export const BASE_RETENTION = 0.92;
 export const PEAK_RETENTION = 0.95;
 export const RAMP_DAYS = 21;
 /** A skill whose predicted retention on exam day falls below this gets a last review before the exam. */
