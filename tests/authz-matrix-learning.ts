@@ -1,4 +1,30 @@
 // Authorization matrix entries for the learner's day: placement, daily set, mock exam, progress, bench. Part of tests/authz-matrix.ts; same rules.
-import type { MatrixEntry } from './authz-matrix';
+import type { MatrixEntry, Outcome } from './authz-matrix';
 
-export const LEARNING_ROUTES: MatrixEntry[] = [];
+// A JSON POST without a body gets past the guard and is refused by the zod schema: 400 with
+// { error: { code, message, fields } }. Outcome only names 200 so far, hence the cast (the test compares the number).
+const BAD_BODY = { status: 400 } as unknown as Outcome;
+
+export const LEARNING_ROUTES: MatrixEntry[] = [
+	{ kind: 'page', route: '/learn', allow: ['learner'] },
+	{ kind: 'page', route: '/learn/settings', allow: ['learner'] },
+	{
+		kind: 'action',
+		route: '/learn/settings',
+		action: 'default',
+		allow: ['learner'],
+		form: () => ({ examDate: '', dailyItems: '15', dailyMinutes: '10' }),
+		outcome: { redirect: '/learn/settings' }
+	},
+	{ kind: 'page', route: '/learn/history', allow: ['learner'] },
+	{ kind: 'page', route: '/progress', allow: ['learner'] },
+	{ kind: 'page', route: '/exam', allow: ['learner'] },
+	{ kind: 'action', route: '/exam', action: 'start', allow: ['learner'], form: () => ({ count: '3', minutes: '3' }), outcome: { redirect: '/exam' } },
+	{ kind: 'action', route: '/exam', action: 'finish', allow: ['learner'], form: () => ({}), outcome: { redirect: '/exam' } },
+	// An exam that does not exist (or is someone else's) sends the learner back to the exam page.
+	{ kind: 'page', route: '/exam/[id]', path: '/exam/0', allow: ['learner'], outcome: { redirect: '/exam' } },
+	{ kind: 'endpoint', route: '/api/learn/next', method: 'GET', allow: ['learner'] },
+	{ kind: 'endpoint', route: '/api/learn/answer', method: 'POST', allow: ['learner'], outcome: BAD_BODY },
+	{ kind: 'endpoint', route: '/api/exam/current', method: 'GET', allow: ['learner'] },
+	{ kind: 'endpoint', route: '/api/exam/answer', method: 'POST', allow: ['learner'], outcome: BAD_BODY }
+];

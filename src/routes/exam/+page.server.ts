@@ -10,7 +10,8 @@ import { startSchema } from './schema';
 export const load: PageServerLoad = async (event) => {
 	const user = requireRole(event, 'learner');
 	const db = getDb();
-	return { running: (await activeExamId(db, user.id)) !== null, past: await pastExams(db, user.id), defaults: MOCK_DEFAULTS, method: READINESS_METHOD };
+	const finished = Number(event.url.searchParams.get('finished')) || null;
+	return { running: (await activeExamId(db, user.id)) !== null, finished, past: await pastExams(db, user.id), defaults: MOCK_DEFAULTS, method: READINESS_METHOD };
 };
 
 export const actions: Actions = {
@@ -30,10 +31,7 @@ export const actions: Actions = {
 	finish: async (event) => {
 		const user = requireRole(event, 'learner');
 		const id = await activeExamId(getDb(), user.id);
-		if (id !== null) {
-			await finishExam(getDb(), user.id, id);
-			redirect(303, `/exam/${id}`);
-		}
-		redirect(303, '/exam');
+		if (id !== null) await finishExam(getDb(), user.id, id);
+		redirect(303, id !== null ? `/exam?finished=${id}` : '/exam');
 	}
 };
