@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { mkdirSync } from 'node:fs';
 import { randomBytes } from 'node:crypto';
 import type { BrowserContext, Page } from 'playwright-core';
-import { APP_URL } from '../helpers/app';
+import { APP_URL, demoAccount, signIn as signInHttp } from '../helpers/app';
 import { launchBrowser, openPage } from '../helpers/browser';
 import { DEMO_PASSWORD } from '../../src/lib/server/seed/demo';
 
@@ -101,5 +101,55 @@ describe('writing and reviewing an item (Chromium)', () => {
 		await openPage(page, `${APP_URL}/author?status=published`);
 		await expect.poll(() => page.locator(`[data-item="${id}"] [data-status]`).getAttribute('data-status')).toBe('published');
 		await page.close();
+	});
+
+	it('uploads a .md file as a draft', async () => {
+		const page = await context.newPage();
+		await signIn(page, 'author@harrowcreek.example');
+		await openPage(page, `${APP_URL}/author/items/new`);
+		const uploaded = `upload-${randomBytes(3).toString('hex')}`;
+		await page.getByLabel('Or upload a .md item file').setInputFiles({ name: `${uploaded}.md`, mimeType: 'text/markdown', buffer: Buffer.from(source.replace(`id: ${id}`, `id: ${uploaded}`)) });
+		await page.getByRole('button', { name: 'Upload as draft' }).click();
+		await page.waitForURL(`${APP_URL}/author/items/${uploaded}?saved=1`);
+		await expect.poll(() => page.getByTestId('item-status').textContent()).toBe('draft');
+
+		await openPage(page, `${APP_URL}/author/items/new`);
+		await page.getByLabel('Or upload a .md item file').setInputFiles({ name: 'notes.txt', mimeType: 'text/plain', buffer: Buffer.from('hello') });
+		await page.getByRole('button', { name: 'Upload as draft' }).click();
+		await expect.poll(() => page.getByRole('alert').first().textContent()).toContain('upload a .md file');
+		await page.close();
+	});
+});
+
+describe('POST /api/author/preview', () => {
+	const post = async (body: string, cookie: string) => {
+		const res = await fetch(`${APP_URL}/api/author/preview`, { method: 'POST', headers: { 'content-type': 'application/json', cookie }, body });
+		return { status: res.status, json: (await res.json()) as Record<string, any> };
+	};
+
+	it('answers the engine\'s key and tagged distractors, and errors with their lines', async () => {
+		const cookie = await signInHttp(demoAccount('author').email);
+		const ok = await post(JSON.stringify({ source }), cookie);
+		expect(ok.status).toBe(200);
+		expect(ok.json.ok).toBe(true);
+		// 12.6 V at B with S1 open (docs/item-format.md's worked example; common practice).
+		expect(ok.json.key).toContain('12.6 V');
+		expect(ok.json.distractors.length).toBeGreaterThan(0);
+		expect(ok.json.distractors.every((d: { tag: string }) => d.tag.length > 0)).toBe(true);
+		expect(ok.json.svg).toContain('<svg');
+
+		const bad = await post(JSON.stringify({ source: source.replace('{ volts: B, state: cold }', '{ volts: B, state: frozen }') }), cookie);
+		expect(bad.status).toBe(200);
+		expect(bad.json.ok).toBe(false);
+		expect(bad.json.errors[0].line).toBe(7);
+		expect(bad.json.errors[0].message).toContain('frozen');
+
+		const notJson = await post('{source: oops', cookie);
+		expect(notJson.status).toBe(400);
+		expect(notJson.json.error.code).toBe('bad_json');
+		expect(notJson.json.error.message).toContain('not JSON');
+		const wrongShape = await post(JSON.stringify({ source: 42 }), cookie);
+		expect(wrongShape.status).toBe(400);
+		expect(wrongShape.json.error.fields.source).toBeTruthy();
 	});
 });
