@@ -26,5 +26,12 @@ export const LEARNING_ROUTES: MatrixEntry[] = [
 	{ kind: 'endpoint', route: '/api/learn/next', method: 'GET', allow: ['learner'] },
 	{ kind: 'endpoint', route: '/api/learn/answer', method: 'POST', allow: ['learner'], outcome: BAD_BODY },
 	{ kind: 'endpoint', route: '/api/exam/current', method: 'GET', allow: ['learner'] },
-	{ kind: 'endpoint', route: '/api/exam/answer', method: 'POST', allow: ['learner'], outcome: BAD_BODY }
+	{ kind: 'endpoint', route: '/api/exam/answer', method: 'POST', allow: ['learner'], outcome: BAD_BODY },
+	{ kind: 'page', route: '/bench', allow: ['learner', 'instructor', 'author'] },
+	{ kind: 'page', route: '/bench/[circuit]', path: '/bench/horn-relay', allow: ['learner', 'instructor', 'author'] },
+	// A challenge that does not exist sends the visitor back to the bench list.
+	{ kind: 'page', route: '/bench/challenge/[id]', path: '/bench/challenge/none', allow: ['learner', 'instructor', 'author'], outcome: { redirect: '/bench' } },
+	{ kind: 'endpoint', route: '/api/bench/challenge', method: 'POST', allow: ['learner', 'instructor', 'author'], outcome: BAD_BODY },
+	{ kind: 'endpoint', route: '/api/bench/reading', method: 'POST', allow: ['learner', 'instructor', 'author'], outcome: BAD_BODY },
+	{ kind: 'endpoint', route: '/api/bench/guess', method: 'POST', allow: ['learner', 'instructor', 'author'], outcome: BAD_BODY }
 ];

@@ -137,6 +137,8 @@ describe('the learner’s day at 360 px', () => {
 		expect(summary).toMatch(/Streak\s*1 day/);
 		expect(summary).toMatch(/Days to the exam\s*(39|40)/);
 		await expect.poll(() => page.locator('canvas').count()).toBe(3);
+		// Chart.js sizes each canvas when it has drawn it.
+		await expect.poll(() => page.evaluate(() => [...document.querySelectorAll('canvas')].every((c) => c.style.display === 'block'))).toBe(true);
 		await expectNoSideScroll(page);
 		await shoot(page, 'progress', true);
 	}, 240_000);
@@ -167,5 +169,38 @@ describe('the learner’s day at 360 px', () => {
 		expect(await page.getByTestId('readiness').textContent()).toContain('our own cut score');
 		await expectNoSideScroll(page);
 		await shoot(page, 'exam-report', true);
+	}, 120_000);
+});
+
+describe('the bench at 360 px', () => {
+	it('hides a fault, takes readings from the server and names the fault', async () => {
+		const page = await context.newPage();
+		await signUp(page, 'bench');
+		await openPage(page, `${APP_URL}/bench`);
+		await shoot(page, 'bench-list', true);
+		await openPage(page, `${APP_URL}/bench/horn-relay`);
+		await page.locator('svg').first().waitFor();
+		await expectNoSideScroll(page);
+		await shoot(page, 'bench-free', true);
+		await page.getByTestId('hide-fault').click();
+		await page.waitForURL(/\/bench\/challenge\/[\w-]+$/);
+		// The page never carries the hidden fault's identity beyond the list of candidates.
+		const html = await page.content();
+		expect(html).not.toMatch(/"fault":"/);
+		await page.getByTestId('complaint').waitFor();
+		for (let i = 0; i < 2; i++) {
+			await page.getByTestId('take-reading').click();
+			await expect.poll(() => page.getByTestId('readings').locator('li').count()).toBe(i + 1);
+		}
+		expect(await page.getByTestId('readings').textContent()).toMatch(/-?\d+\.\d\d V|Dead short/);
+		const guess = page.getByTestId('fault-guess');
+		const firstFault = await guess.locator('option:not([disabled])').first().getAttribute('value');
+		await guess.selectOption(firstFault!);
+		await page.getByTestId('name-fault').click();
+		const verdict = page.getByTestId('verdict');
+		await verdict.waitFor();
+		expect(await verdict.textContent()).toMatch(/You took 2 readings; the engine's next-best-test strategy needs \d+/);
+		await expectNoSideScroll(page);
+		await shoot(page, 'bench-challenge', true);
 	}, 120_000);
 });

@@ -1,0 +1,7 @@
+import { z } from 'zod';
+
+export const guessSchema = z.strictObject({
+	challengeId: z.string().min(1).max(24),
+	fault: z.string().min(3).max(120),
+	readings: z.number().int().min(0).max(500)
+});
