@@ -164,12 +164,17 @@ export async function challengeReading(db: Db, req: { challengeId: string; state
 	return { state: req.state, red: req.red, black: req.black, volts: Math.round((a - b) * 1000) / 1000, note: null };
 }
 
-/** The number of readings the engine's strategy takes: diagnose's next best test, read under the fault, until one candidate is left. */
+/**
+ * The number of readings the engine's strategy takes: diagnose's next best test, read under the fault,
+ * until one candidate is left or a reading no longer narrows them (the rest cannot be told apart).
+ */
 export function engineTests(c: Circuit, fault: string): number {
 	const obs = complaintOf(c, fault);
+	let left = Infinity;
 	for (let n = 0; n < 12; n++) {
 		const d = diagnose(c, obs);
-		if (d.candidates.length <= 1 || !d.next_test) return n;
+		if (d.candidates.length <= 1 || !d.next_test || d.candidates.length >= left) return n;
+		left = d.candidates.length;
 		const { state, point } = d.next_test;
 		const r = solveCircuit(c, { state, fault });
 		if ('error' in r) return n + 1;
@@ -177,6 +182,19 @@ export function engineTests(c: Circuit, fault: string): number {
 		o.points[point] = r.points[point].reads;
 	}
 	return 12;
+}
+
+/** True when two faults look the same on the bench: the same load statuses and point volts (to 0.01 V) in every state. */
+export function sameSymptoms(c: Circuit, a: string, b: string): boolean {
+	const look = (f: string) =>
+		JSON.stringify(
+			statesOf(c).map((state) => {
+				const r = solveCircuit(c, { state, fault: f });
+				if ('error' in r) return 'dead short';
+				return [Object.entries(r.parts).filter(([id]) => c.parts.find((p) => p.id === id && LOADS.has(p.type))).map(([id, p]) => `${id}=${p.status}`), Object.entries(r.points).map(([id, p]) => `${id}=${p.volts.toFixed(2)}`)];
+			})
+		);
+	return look(a) === look(b);
 }
 
 /** Scores a named fault: right or wrong, the hidden fault, and the readings used against the engine's. */
@@ -188,7 +206,8 @@ export async function judgeGuess(db: Db, req: { challengeId: string; fault: stri
 	} catch {
 		throw new LearnError('bad_fault', `"${req.fault}" is not a fault: pick one from the list.`, 400, { fault: 'not a fault' });
 	}
-	const correct = named === ch.fault;
+	// A fault that no reading on the bench can tell from the hidden one counts as found.
+	const correct = named === ch.fault || sameSymptoms(c.engine, named, ch.fault);
 	const engine = engineTests(c.engine, ch.fault);
 	const used = Math.max(0, req.readings);
 	const efficiency = used === 0 ? 1 : Math.min(1, Math.max(engine, 1) / used);
