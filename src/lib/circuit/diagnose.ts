@@ -3,9 +3,9 @@
  * in which state splits those candidates best (least expected candidates left, Σ nᵢ² / N).
  */
 import { ObservationError } from './errors';
-import { applyFault, formatFault, standardFaults } from './faults';
+import { faultedCircuit, formatFault, standardFaults } from './faults';
 import { FUSE_TYPES, LOAD_TYPES, type Circuit, type Part } from './model';
-import { compileNet } from './netlist';
+import { compileTransient } from './netlist';
 import { buildResult, partState, readingClass, reachableNodes } from './results';
 import { settle, type Settled } from './settle';
 import type { Diagnosis, Observation, SolveResult } from './types';
@@ -66,18 +66,26 @@ export function diagnose(c: Circuit, observations: Observation[]): Diagnosis {
 	checkObservations(c, observations);
 	const faults = [null, ...standardFaults(c)];
 	const stateNames = c.states.map((s) => s.name);
+	// readings kept per fault and state, only for faults still in the running (the next test needs them)
 	const cache = new Map<string, Outcome>();
-	const circuits = new Map<number, Circuit>();
+	// each faulted circuit is built once per diagnosis and compiled for one use per state (nothing is
+	// cached beyond this call); the answers are those of applyFault then a solve from scratch
+	let lastFi = -1;
+	let lastFc: Circuit = c;
+	const circuitOf = (fi: number): Circuit => {
+		if (fi !== lastFi) {
+			const f = faults[fi];
+			lastFc = f ? faultedCircuit(c, f) : c;
+			lastFi = fi;
+		}
+		return lastFc;
+	};
 	const outcome = (fi: number, state: string): Outcome => {
 		const key = `${fi}|${state}`;
-		if (cache.has(key)) return cache.get(key)!;
-		let fc = circuits.get(fi);
-		if (!fc) {
-			const f = faults[fi];
-			fc = f ? applyFault(c, f) : c;
-			circuits.set(fi, fc);
-		}
-		const s = settle(compileNet(fc, state, null));
+		const known = cache.get(key);
+		if (known !== undefined) return known;
+		const fc = circuitOf(fi);
+		const s = settle(compileTransient(fc, state, null));
 		const r = s.dead ? null : buildResult(s, fc.fault, false);
 		cache.set(key, r);
 		return r;
@@ -96,36 +104,45 @@ export function diagnose(c: Circuit, observations: Observation[]): Diagnosis {
 		}
 		return true;
 	};
+	// A fault is a candidate when it reproduces every observation, so the order in which they are
+	// checked does not change the set. The observation that has ruled out the most faults so far is
+	// checked first (ties: the order given), so most faults are dropped after one settle.
+	const order = observations.map((_, j) => j);
+	const ruledOut = new Int32Array(observations.length);
 	const cand: number[] = [];
 	for (let fi = 0; fi < faults.length; fi++) {
 		let ok = true;
-		for (const o of observations) {
+		for (const j of order) {
+			const o = observations[j];
 			const key = `${fi}|${o.state}`;
 			const known = cache.get(key);
 			if (known !== undefined) {
 				if (!matches(known, o)) ok = false;
 			} else {
-				let fc = circuits.get(fi);
-				if (!fc) {
-					const f = faults[fi];
-					fc = f ? applyFault(c, f) : c;
-					circuits.set(fi, fc);
-				}
-				const s = settle(compileNet(fc, o.state, null));
+				const fc = circuitOf(fi);
+				const s = settle(compileTransient(fc, o.state, null));
 				if (!matchesNow(s, o)) ok = false;
 				// a fault still in the running is looked at again for the next test: keep its readings
-				else cache.set(key, buildResult(s, fc.fault, false));
+				else cache.set(key, s.dead ? null : buildResult(s, fc.fault, false));
 			}
-			if (!ok) break;
+			if (!ok) {
+				ruledOut[j]++;
+				break;
+			}
 		}
 		if (ok) cand.push(fi);
+		else order.sort((x, y) => ruledOut[y] - ruledOut[x] || x - y);
 	}
 	const names = cand.map((fi) => (faults[fi] ? formatFault(faults[fi]!) : 'none'));
 	if (cand.length < 2) return { candidates: names, next_test: null };
 	let best: Diagnosis['next_test'] = null;
 	const N = cand.length;
-	for (const state of stateNames) {
-		const rs = cand.map((fi) => outcome(fi, state));
+	// readings of every candidate in every state (fault by fault, so each faulted circuit is built once)
+	const rsByState: Outcome[][] = stateNames.map(() => new Array<Outcome>(N));
+	cand.forEach((fi, k) => stateNames.forEach((state, si) => (rsByState[si][k] = outcome(fi, state))));
+	for (let si = 0; si < stateNames.length; si++) {
+		const state = stateNames[si];
+		const rs = rsByState[si];
 		for (const pt of c.points) {
 			const groups = new Map<string, string[]>();
 			rs.forEach((r, k) => {

@@ -121,6 +121,17 @@ export function applyFault(c: Circuit, fault: Fault | string): Circuit {
 	return out;
 }
 
+/**
+ * The same faulted circuit as `applyFault`, built without caching it: for a diagnosis, which uses
+ * each of its ~200 faulted circuits once and keeps nothing of them.
+ * @throws FaultError as `applyFault`.
+ */
+export function faultedCircuit(c: Circuit, fault: Fault | string): Circuit {
+	const f = toFault(fault);
+	const text = describeFault(f);
+	return faultCache.get(c)?.get(text) ?? buildFaulted(c, f, text);
+}
+
 /** Faulted circuits by circuit and fault text; circuits are never changed, so a repeat returns the same object. */
 const faultCache = new WeakMap<Circuit, Map<string, Circuit>>();
 

@@ -120,6 +120,68 @@ function ensureNodeScratch(nn: number, ne: number): void {
 		sRowOfSrc = new Int32Array(ne);
 	}
 }
+/**
+ * The one structure kept for transient networks (see `Net.transient`): its own buffers, reused by
+ * the next configuration of any transient network, so a diagnosis over hundreds of faulted networks
+ * allocates no structure per configuration. `net`/`key` say which configuration it holds.
+ */
+const slot = {
+	net: null as Net | null,
+	key: -1,
+	st: null as Structure | null,
+	parent: new Int32Array(0),
+	root: new Int32Array(0),
+	gOf: new Int32Array(0),
+	fixedV: new Float64Array(0),
+	srcOn: new Uint8Array(0),
+	rowOfSrc: new Int32Array(0),
+	baseA: new Float64Array(0),
+	baseRhs: new Float64Array(0),
+	first: new Int32Array(0),
+	last: new Int32Array(0)
+};
+
+function ensureSlot(nn: number, ne: number, n: number): void {
+	if (slot.parent.length < nn) {
+		const cap = Math.max(nn, 2 * slot.parent.length);
+		slot.parent = new Int32Array(cap);
+		slot.root = new Int32Array(cap);
+		slot.gOf = new Int32Array(cap);
+		slot.fixedV = new Float64Array(cap);
+	}
+	if (slot.srcOn.length < ne) {
+		const cap = Math.max(ne, 2 * slot.srcOn.length);
+		slot.srcOn = new Uint8Array(cap);
+		slot.rowOfSrc = new Int32Array(cap);
+	}
+	if (slot.baseRhs.length < n) {
+		const cap = Math.max(n, 2 * slot.baseRhs.length);
+		slot.baseA = new Float64Array(cap * cap);
+		slot.baseRhs = new Float64Array(cap);
+		slot.first = new Int32Array(cap);
+		slot.last = new Int32Array(cap);
+	}
+}
+
+/** Scratch of the numbering of unknowns (adjacency, degrees, stack), valid during one build. */
+let oDeg = new Int32Array(0);
+let oAdj = new Int32Array(0);
+let oFill = new Int32Array(0);
+let oLeft = new Int32Array(0);
+let oPlaced = new Uint8Array(0);
+let oStack = new Int32Array(0);
+
+function ensureOrderScratch(nn: number, ne: number): void {
+	if (oDeg.length < nn + 1) {
+		oDeg = new Int32Array(nn + 1);
+		oFill = new Int32Array(nn);
+		oLeft = new Int32Array(nn);
+		oPlaced = new Uint8Array(nn);
+	}
+	if (oAdj.length < 2 * ne) oAdj = new Int32Array(2 * ne);
+	if (oStack.length < nn + 2 * ne) oStack = new Int32Array(nn + 2 * ne);
+}
+
 let spotScratch = new Float64Array(0);
 let tmpScratch = new Int32Array(0);
 
@@ -152,14 +214,18 @@ function conductive(c: number): boolean {
  * buffers (nothing kept): a configuration solved once costs no lasting memory; the matrix is then
  * built straight into the solve's own buffer.
  */
-function buildStructure(net: Net, cfg: Config, scratch = false): Structure {
+function buildStructure(net: Net, cfg: Config, mode: 'keep' | 'scratch' | 'slot' = 'keep'): Structure {
 	const nn = net.nNodes;
 	const code = net.code;
 	const ea = net.ea;
 	const eb = net.eb;
 	const ne = code.length;
+	const scratch = mode === 'scratch';
+	const inSlot = mode === 'slot';
+	const reuse = scratch || inSlot;
 	if (scratch) ensureNodeScratch(nn, ne);
-	const parent = scratch ? sParent.subarray(0, nn) : new Int32Array(nn);
+	if (inSlot) ensureSlot(nn, ne, 0);
+	const parent = scratch ? sParent.subarray(0, nn) : inSlot ? slot.parent.subarray(0, nn) : new Int32Array(nn);
 	parent.set(net.baseParent);
 	const nr = net.relayPart.length;
 	for (let r = 0; r < nr; r++) {
@@ -168,8 +234,8 @@ function buildStructure(net: Net, cfg: Config, scratch = false): Structure {
 		if (no >= 0 && contactClosed(net, cfg, r, false)) unite(parent, ea[no], eb[no]);
 		if (nc >= 0 && contactClosed(net, cfg, r, true)) unite(parent, ea[nc], eb[nc]);
 	}
-	const root = scratch ? sRoot.subarray(0, nn) : new Int32Array(nn);
-	const gOf = scratch ? sGOf.subarray(0, nn) : new Int32Array(nn);
+	const root = scratch ? sRoot.subarray(0, nn) : inSlot ? slot.root.subarray(0, nn) : new Int32Array(nn);
+	const gOf = scratch ? sGOf.subarray(0, nn) : inSlot ? slot.gOf.subarray(0, nn) : new Int32Array(nn);
 	if (sparScratch.length < nn) {
 		sparScratch = new Int32Array(nn);
 		spotScratch = new Float64Array(nn);
@@ -184,10 +250,10 @@ function buildStructure(net: Net, cfg: Config, scratch = false): Structure {
 		spar[i] = i;
 	}
 	for (let d = 0; d < net.diodes.length; d++) gOf[net.emid[net.diodes[d]]] = -2;
-	const fixedV = scratch ? sFixedV.subarray(0, nn) : new Float64Array(nn);
-	const srcOn = scratch ? sSrcOn.subarray(0, ne) : new Uint8Array(ne);
-	const rowOfSrc = scratch ? sRowOfSrc.subarray(0, ne) : new Int32Array(ne);
-	if (scratch) {
+	const fixedV = scratch ? sFixedV.subarray(0, nn) : inSlot ? slot.fixedV.subarray(0, nn) : new Float64Array(nn);
+	const srcOn = scratch ? sSrcOn.subarray(0, ne) : inSlot ? slot.srcOn.subarray(0, ne) : new Uint8Array(ne);
+	const rowOfSrc = scratch ? sRowOfSrc.subarray(0, ne) : inSlot ? slot.rowOfSrc.subarray(0, ne) : new Int32Array(ne);
+	if (reuse) {
 		fixedV.fill(0);
 		srcOn.fill(0);
 	}
@@ -232,7 +298,9 @@ function buildStructure(net: Net, cfg: Config, scratch = false): Structure {
 	}
 	const nv = groups.length;
 	// adjacency of the unknown merged nodes through conducting elements (compressed rows)
-	const deg = new Int32Array(nv + 1);
+	ensureOrderScratch(nn, ne);
+	const deg = oDeg;
+	deg.fill(0, 0, nv + 1);
 	for (let i = 0; i < ne; i++) {
 		if (!conductive(code[i])) continue;
 		const ta = tmp[root[ea[i]]];
@@ -243,8 +311,9 @@ function buildStructure(net: Net, cfg: Config, scratch = false): Structure {
 		}
 	}
 	for (let t = 0; t < nv; t++) deg[t + 1] += deg[t];
-	const adj = new Int32Array(deg[nv]);
-	const fillAt = deg.slice(0, nv);
+	const adj = oAdj;
+	const fillAt = oFill;
+	fillAt.set(deg.subarray(0, nv));
 	for (let i = 0; i < ne; i++) {
 		if (!conductive(code[i])) continue;
 		const ta = tmp[root[ea[i]]];
@@ -255,10 +324,11 @@ function buildStructure(net: Net, cfg: Config, scratch = false): Structure {
 		}
 	}
 	// number leaves first (then the least connected), so that elimination makes little fill-in
-	const left = new Int32Array(nv);
+	const left = oLeft;
 	for (let t = 0; t < nv; t++) left[t] = deg[t + 1] - deg[t];
-	const placed = new Uint8Array(nv);
-	const stack = new Int32Array(nv + adj.length);
+	const placed = oPlaced;
+	placed.fill(0, 0, nv);
+	const stack = oStack;
 	let sp = 0;
 	for (let t = nv - 1; t >= 0; t--) if (left[t] <= 1) stack[sp++] = t;
 	let next = 0;
@@ -305,6 +375,14 @@ function buildStructure(net: Net, cfg: Config, scratch = false): Structure {
 		baseRhs.fill(0);
 		first = spans.first;
 		last = spans.last;
+	} else if (inSlot) {
+		ensureSlot(nn, ne, n);
+		baseA = slot.baseA.subarray(0, n * n);
+		baseA.fill(0);
+		baseRhs = slot.baseRhs.subarray(0, n);
+		baseRhs.fill(0);
+		first = slot.first.subarray(0, n);
+		last = slot.last.subarray(0, n);
 	} else {
 		baseA = new Float64Array(n * n);
 		baseRhs = new Float64Array(n);
@@ -344,7 +422,8 @@ function buildStructure(net: Net, cfg: Config, scratch = false): Structure {
 	}
 	// one 10 MΩ meter per merged node with unknown volts (not on diode or battery internals)
 	const gm = 1 / METER_OHMS;
-	const metered = new Uint8Array(nv);
+	const metered = oPlaced;
+	metered.fill(0, 0, nv);
 	for (let i = 0; i < nn; i++) {
 		if (!net.metered[i]) continue;
 		const k = gOf[root[i]];
@@ -382,23 +461,37 @@ function stampInto(st: Structure, M: Float64Array, b: Float64Array, n: number, n
  * @throws SingularMatrixError only for a network the model cannot produce (every node has a meter).
  */
 export function solveLinear(net: Net, cfg: Config, w: Work): boolean {
-	let byKey = structures.get(net);
-	if (!byKey) structures.set(net, (byKey = new Map()));
 	const key = relayKey(cfg.relay);
-	let st = byKey.get(key);
+	let st: Structure | undefined;
 	let inPlace = false;
+	if (net.transient) {
+		// transient networks share one kept structure: the same configuration solved again in a row
+		// (a diode flipped, a fuse opened) reuses it; any other configuration replaces it
+		if (slot.net === net && slot.key === key) st = slot.st!;
+		else {
+			slot.net = null;
+			st = buildStructure(net, cfg, 'slot');
+			slot.net = net;
+			slot.key = key;
+			slot.st = st;
+		}
+	} else {
+		let byKey = structures.get(net);
+		if (!byKey) structures.set(net, (byKey = new Map()));
+		st = byKey.get(key);
+	}
 	if (!st) {
 		// a configuration is kept from its second solve on; the first is solved in shared buffers
 		let seen = seenOnce.get(net);
 		if (!seen) seenOnce.set(net, (seen = new Set()));
-		if (seen.has(key)) byKey.set(key, (st = buildStructure(net, cfg)));
+		if (seen.has(key)) structures.get(net)!.set(key, (st = buildStructure(net, cfg)));
 		else {
 			seen.add(key);
-			st = buildStructure(net, cfg, true);
+			st = buildStructure(net, cfg, 'scratch');
 			inPlace = true;
 		}
 	}
-	w.cacheable = !inPlace;
+	w.cacheable = !inPlace && !net.transient;
 	w.parent = st.parent;
 	w.root = st.root;
 	w.gOf = st.gOf;

@@ -5,7 +5,7 @@
 import { SolveOptionError } from './errors';
 import { FUSE_TYPES, LOAD_TYPES, type Circuit, type NetElement } from './model';
 import { TEST_LAMP_WATTS } from './tables';
-import { makeSets, unite } from './union-find';
+import { unite } from './union-find';
 
 /** Element codes of the compiled network. */
 export const enum Code {
@@ -74,6 +74,12 @@ export type Net = {
 	partKind: Uint8Array;
 	/** 1 for the battery's internal resistance (its current is taken from KCL, like the source's). */
 	seriesOfSource: Uint8Array;
+	/**
+	 * True for a network compiled for one use (a diagnosis's faulted networks, see `compileTransient`):
+	 * nothing is cached by it, its solve structures live in one shared slot, its results are read
+	 * right after settling. The arithmetic is the same as for a cached network.
+	 */
+	transient: boolean;
 };
 
 /** Part kinds for reporting status and current. */
@@ -133,6 +139,15 @@ export function compileNet(c: Circuit, state: string | null | undefined, lamp: s
 	return net;
 }
 
+/**
+ * Compiles a circuit for one state without caching the network (see `Net.transient`): for a
+ * diagnosis, which settles each faulted circuit once per state and keeps only what it read.
+ * @throws SolveOptionError for an unknown state or lamp point.
+ */
+export function compileTransient(c: Circuit, state: string | null | undefined, lamp: string | null | undefined): Net {
+	return buildNet(c, state, lamp, true);
+}
+
 /** Compiled networks by circuit, then by state and lamp. A Net is never changed after it is built. */
 const netCache = new WeakMap<Circuit, Map<string, Net>>();
 
@@ -166,7 +181,33 @@ function nodeIndexOf(c: Circuit): Map<string, number> {
 	return m;
 }
 
-function buildNet(c: Circuit, state: string | null | undefined, lamp: string | null | undefined): Net {
+/** A bump allocator of typed arrays over one buffer sized up front (zero-filled, like fresh arrays). */
+function arena(nf64: number, ni32: number, nu8: number) {
+	const buf = new ArrayBuffer(nf64 * 8 + ni32 * 4 + nu8);
+	const F = new Float64Array(buf, 0, nf64);
+	const I = new Int32Array(buf, nf64 * 8, ni32);
+	const U = new Uint8Array(buf, nf64 * 8 + ni32 * 4, nu8);
+	let pf = 0;
+	let pi = 0;
+	let pu = 0;
+	const room = (end: number, cap: number): number => {
+		if (end > cap) throw new Error('network arrays sized too small'); // cannot happen: sizes are bounds
+		return end;
+	};
+	const i32 = (n: number): Int32Array => I.subarray(pi, (pi = room(pi + n, ni32)));
+	return {
+		f64: (n: number): Float64Array => F.subarray(pf, (pf = room(pf + n, nf64))),
+		i32,
+		u8: (n: number): Uint8Array => U.subarray(pu, (pu = room(pu + n, nu8))),
+		from: (xs: number[]): Int32Array => {
+			const a = i32(xs.length);
+			a.set(xs);
+			return a;
+		}
+	};
+}
+
+function buildNet(c: Circuit, state: string | null | undefined, lamp: string | null | undefined, transient = false): Net {
 	const nodeIdx = nodeIndexOf(c);
 	const st = state == null ? null : c.states.find((s) => s.name === state);
 	if (st === undefined)
@@ -183,13 +224,17 @@ function buildNet(c: Circuit, state: string | null | undefined, lamp: string | n
 	}
 	const ne = els.length;
 	const nNodes = c.nodeNames.length;
-	const code = new Uint8Array(ne);
-	const ea = new Int32Array(ne);
-	const eb = new Int32Array(ne);
-	const g = new Float64Array(ne);
-	const ev = new Float64Array(ne);
-	const emid = new Int32Array(ne).fill(-1);
-	const baseParent = makeSets(nNodes);
+	// every array of the network in one buffer (one allocation instead of some twenty)
+	const np = c.parts.length;
+	const mem = arena(3 * ne, 7 * ne + nNodes + 9 * np, 2 * ne + 2 * nNodes + 2 * np);
+	const code = mem.u8(ne);
+	const ea = mem.i32(ne);
+	const eb = mem.i32(ne);
+	const g = mem.f64(ne);
+	const ev = mem.f64(ne);
+	const emid = mem.i32(ne).fill(-1);
+	const baseParent = mem.i32(nNodes);
+	for (let i = 0; i < nNodes; i++) baseParent[i] = i;
 	const fuses: number[] = [];
 	const diodes: number[] = [];
 	const sources: number[] = [];
@@ -256,15 +301,15 @@ function buildNet(c: Circuit, state: string | null | undefined, lamp: string | n
 	}
 	// relays: from the part list, so a relay with every element removed by a fault still reports
 	const nr = relayPart.length;
-	const relayNo = new Int32Array(nr).fill(-1);
-	const relayNc = new Int32Array(nr).fill(-1);
-	const relayCoil = new Int32Array(nr).fill(-1);
-	const relay85 = new Int32Array(nr);
-	const relay86 = new Int32Array(nr);
-	const relayDead = new Uint8Array(nr);
-	const relayWelded = new Uint8Array(nr);
-	const pullInMv = new Int32Array(nr);
-	const dropOutMv = new Int32Array(nr);
+	const relayNo = mem.i32(nr).fill(-1);
+	const relayNc = mem.i32(nr).fill(-1);
+	const relayCoil = mem.i32(nr).fill(-1);
+	const relay85 = mem.i32(nr);
+	const relay86 = mem.i32(nr);
+	const relayDead = mem.u8(nr);
+	const relayWelded = mem.u8(nr);
+	const pullInMv = mem.i32(nr);
+	const dropOutMv = mem.i32(nr);
 	for (let r = 0; r < nr; r++) {
 		const p = c.parts[relayPart[r]];
 		relay85[r] = nodeIdx.get(`${p.id}.85`)!;
@@ -287,20 +332,20 @@ function buildNet(c: Circuit, state: string | null | undefined, lamp: string | n
 		}
 	}
 	for (let r = 0; r < nr; r++) if (relayCoil[r] < 0) relayDead[r] = 1;
-	const metered = new Uint8Array(nNodes);
+	const metered = mem.u8(nNodes);
 	for (let i = 0; i < nNodes; i++) {
 		const n = c.nodeNames[i];
 		metered[i] = i !== 1 && !(i >= c.fileNodeCount && (n.endsWith('#int') || n.endsWith('#emf'))) ? 1 : 0;
 	}
 	// internal nodes that no element touches (a removed diode's midpoint) stay out of the matrix
-	const dormant = new Uint8Array(nNodes);
+	const dormant = mem.u8(nNodes);
 	for (let i = c.fileNodeCount; i < nNodes; i++) dormant[i] = metered[i] ? 0 : 1;
 	for (let i = 0; i < ne; i++) {
 		dormant[ea[i]] = 0;
 		dormant[eb[i]] = 0;
 		if (emid[i] >= 0) dormant[emid[i]] = 0;
 	}
-	const fuseRating = new Float64Array(fuses.length);
+	const fuseRating = mem.f64(fuses.length);
 	fuses.forEach((ei, k) => {
 		const p = c.parts[els[ei].part];
 		fuseRating[k] = FUSE_TYPES.has(p.type) ? p.rating! : Infinity;
@@ -309,18 +354,18 @@ function buildNet(c: Circuit, state: string | null | undefined, lamp: string | n
 	const pointNode = shared.pointNode;
 	const partEls: number[][] = c.parts.map(() => []);
 	for (let i = 0; i < ne; i++) if (els[i].part >= 0) partEls[els[i].part].push(i);
-	const fuseSlot = new Int32Array(ne).fill(-1);
+	const fuseSlot = mem.i32(ne).fill(-1);
 	fuses.forEach((e, k) => (fuseSlot[e] = k));
-	const diodeSlot = new Int32Array(ne).fill(-1);
+	const diodeSlot = mem.i32(ne).fill(-1);
 	diodes.forEach((e, k) => (diodeSlot[e] = k));
-	const relayOfEl = new Int32Array(ne).fill(-1);
-	const relayOfPart = new Int32Array(c.parts.length).fill(-1);
+	const relayOfEl = mem.i32(ne).fill(-1);
+	const relayOfPart = mem.i32(np).fill(-1);
 	for (let r = 0; r < nr; r++) {
 		relayOfPart[relayPart[r]] = r;
 		for (const e of [relayNo[r], relayNc[r], relayCoil[r]]) if (e >= 0) relayOfEl[e] = r;
 	}
 	const partKind = shared.partKind;
-	const seriesOfSource = new Uint8Array(ne);
+	const seriesOfSource = mem.u8(ne);
 	for (let i = 0; i < ne; i++) if (els[i].kind === 'source' && els[i].role === 'resistor') seriesOfSource[i] = 1;
 	return {
 		partKind,
@@ -345,9 +390,9 @@ function buildNet(c: Circuit, state: string | null | undefined, lamp: string | n
 		metered,
 		dormant,
 		baseParent,
-		fuses: new Int32Array(fuses),
+		fuses: mem.from(fuses),
 		fuseRating,
-		relayPart: new Int32Array(relayPart),
+		relayPart: mem.from(relayPart),
 		relayNo,
 		relayNc,
 		relayCoil,
@@ -357,9 +402,10 @@ function buildNet(c: Circuit, state: string | null | undefined, lamp: string | n
 		relayWelded,
 		pullInMv,
 		dropOutMv,
-		diodes: new Int32Array(diodes),
-		sources: new Int32Array(sources),
+		diodes: mem.from(diodes),
+		sources: mem.from(sources),
 		lampEl,
-		lampOhms
+		lampOhms,
+		transient
 	};
 }

@@ -30,9 +30,18 @@ function relayCode(relay: Int8Array): number {
 /** One set of solve buffers per compiled network, reused by the next settle of that network. */
 const pooled = new WeakMap<Net, Work>();
 
+/** Solve buffers for transient networks, by node count (a solve replaces every other array of a Work). */
+const transientPool = new Map<number, Work>();
+
+function transientWork(net: Net): Work {
+	let w = transientPool.get(net.nNodes);
+	if (!w) transientPool.set(net.nNodes, (w = makeWork(net)));
+	return w;
+}
+
 /** Settles a compiled network (its buffers are reused by the next settle of the same network, so read results first). Never throws for a network built from a valid circuit. */
 export function settle(net: Net, opts: SettleOptions = {}, work?: Work): Settled {
-	let w = work ?? pooled.get(net);
+	let w = work ?? (net.transient ? transientWork(net) : pooled.get(net));
 	if (!w) pooled.set(net, (w = makeWork(net)));
 	const nr = net.relayPart.length;
 	const cfg: Config = {
