@@ -29,7 +29,7 @@ describe('scheduleReview', () => {
 	// at 04:00 local is 11:00 UTC in Denver (MST, UTC−7) and 02:00 UTC in Berlin (CEST, UTC+2).
 	it('puts a Denver learner’s due date at 04:00 MST after the November DST end', () => {
 		// 20:00 MDT on Friday 30 October 2026 = 02:00 UTC on the 31st; the learning day is 30 October.
-		const r = scheduleReview(null, 3, '2026-10-31T02:00:00Z', { timeZone: 'America/Denver' });
+		const r = scheduleReview(null, 3, '2026-10-31T02:00:00Z', { timeZone: 'America/Denver', learningStepDays: 0 });
 		const days = r.card.scheduled_days;
 		expect(days).toBeGreaterThanOrEqual(2); // so the due day is on or after 1 November
 		expect(r.dueDay).toBe(addDays('2026-10-30', days));
@@ -38,12 +38,12 @@ describe('scheduleReview', () => {
 
 	it('puts a Berlin learner’s due date at 04:00 CEST after the March change', () => {
 		// 21:00 CET on Friday 27 March 2026 = 20:00 UTC.
-		const r = scheduleReview(null, 3, '2026-03-27T20:00:00Z', { timeZone: 'Europe/Berlin' });
+		const r = scheduleReview(null, 3, '2026-03-27T20:00:00Z', { timeZone: 'Europe/Berlin', learningStepDays: 0 });
 		const days = r.card.scheduled_days;
 		expect(days).toBeGreaterThanOrEqual(2);
 		expect(r.card.due).toBe(new Date(Date.UTC(2026, 2, 27 + days, 2)).toISOString());
 		// A review at 03:30 CEST on the 29th (01:30 UTC) still belongs to the 28th: it counts from there.
-		const late = scheduleReview(null, 3, '2026-03-29T01:30:00Z', { timeZone: 'Europe/Berlin' });
+		const late = scheduleReview(null, 3, '2026-03-29T01:30:00Z', { timeZone: 'Europe/Berlin', learningStepDays: 0 });
 		expect(late.dueDay).toBe(addDays('2026-03-28', late.card.scheduled_days));
 	});
 
@@ -81,8 +81,26 @@ describe('scheduleReview', () => {
 	});
 
 	it('leaves the due date alone when the exam is after it', () => {
-		const r = scheduleReview(null, 3, '2026-01-31T18:00:00Z', { timeZone: 'UTC', examDate: '2026-06-01' });
+		const r = scheduleReview(null, 3, '2026-01-31T18:00:00Z', { timeZone: 'UTC', examDate: '2026-06-01', learningStepDays: 0 });
 		expect(r.reason).toMatch(/^FSRS interval/);
+	});
+
+	it('reviews a skill again the next learning day after its first answer and after a lapse (learning step, common practice)', () => {
+		// 19:00 in Berlin on 20 April (CEST, UTC+2) = 17:00 UTC; the next learning day starts 04:00 CEST on the 21st.
+		const now = '2026-04-20T17:00:00Z';
+		const first = scheduleReview(null, 3, now, { timeZone: 'Europe/Berlin' });
+		expect(first.dueDay).toBe('2026-04-21');
+		expect(first.card.due).toBe('2026-04-21T02:00:00.000Z');
+		expect(first.reason).toBe('learning step: first answer on this skill, review again in 1 day');
+		// Without the step FSRS-6's first Good (initial stability w₂ ≈ 2.3 days) gives 2 days or more.
+		expect(scheduleReview(null, 3, now, { timeZone: 'Europe/Berlin', learningStepDays: 0 }).card.scheduled_days).toBeGreaterThanOrEqual(2);
+		// A mature card (stability 30 days) answered wrong comes back the next day; answered right it does not.
+		const lapse = scheduleReview(mature, 1, '2026-01-31T18:00:00Z', { timeZone: 'UTC' });
+		expect(lapse.dueDay).toBe('2026-02-01');
+		expect(lapse.reason).toMatch(/^learning step: forgotten/);
+		expect(lapse.card.lapses).toBe(mature.lapses + 1);
+		expect(scheduleReview(mature, 3, '2026-01-31T18:00:00Z', { timeZone: 'UTC' }).card.scheduled_days).toBeGreaterThan(1);
+		expect(() => scheduleReview(null, 3, now, { timeZone: 'UTC', learningStepDays: 0.5 })).toThrow(/learning step must be a whole number/);
 	});
 
 	it('names what is wrong with a bad rating, exam date or time zone', () => {

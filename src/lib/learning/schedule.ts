@@ -49,6 +49,11 @@ export const EXAM_TARGET = 0.98;
 /** How many days before the exam that last review falls. */
 export const FINAL_LEAD_DAYS = 1;
 export const MAXIMUM_INTERVAL = 365;
+/**
+ * The learning step: after the first answer on a skill and after a lapse (Again) the next review comes
+ * this many learning days later, when FSRS's interval is longer (0 turns the step off).
+ */
+export const LEARNING_STEP_DAYS = 1;
 
 export type ScheduleOptions = {
 	/** The learner's IANA time zone; days start at 04:00 local. */
@@ -62,6 +67,8 @@ export type ScheduleOptions = {
 	memoryFactor?: number;
 	/** Exam-day retention below which a last review is placed before the exam (default EXAM_TARGET). */
 	examTarget?: number;
+	/** Days to the review after a first answer or a lapse, at most (default LEARNING_STEP_DAYS; 0: off). */
+	learningStepDays?: number;
 };
 
 /** The desired retention for a review `daysToExam` days before the exam (null: no exam set). */
@@ -186,8 +193,8 @@ export type ScheduledReview = { card: StoredCard; retention: number; dueDay: str
 
 /**
  * Schedules the next review of a skill after an answer rated `rating` at `now`. The interval is FSRS's
- * at a desired retention that rises as the exam nears; the due date is the start (04:00 local) of the
- * learning day that many days on. If that day is on or after the exam and FSRS predicts the skill would
+ * at a desired retention that rises as the exam nears, at most LEARNING_STEP_DAYS after a first answer
+ * or a lapse; the due date is the start (04:00 local) of the learning day that many days on. If that day is on or after the exam and FSRS predicts the skill would
  * then be below EXAM_TARGET, the review moves to FINAL_LEAD_DAYS before the exam.
  * Throws a RangeError naming a bad time zone, instant or exam date.
  */
@@ -205,6 +212,13 @@ export function scheduleReview(card: StoredCard | null, rating: ReviewRating, no
 	const effective = next.stability * m;
 	let days = Math.max(1, Math.min(MAXIMUM_INTERVAL, Math.round(m === 1 ? next.scheduled_days : intervalFor(effective, retention))));
 	let reason = `FSRS interval of ${days} day${days === 1 ? '' : 's'} at desired retention ${retention.toFixed(3)}${m === 1 ? '' : ` and memory factor ${m.toFixed(2)}`}`;
+	const step = options.learningStepDays ?? LEARNING_STEP_DAYS;
+	if (!(step >= 0) || !Number.isInteger(step)) throw new RangeError(`The learning step must be a whole number of days, 0 or more (got ${step}).`);
+	const first = !card || card.state === State.New;
+	if (step > 0 && (first || rating === RATING.again) && days > step) {
+		days = step;
+		reason = `learning step: ${first ? 'first answer on this skill' : 'forgotten'}, review again in ${step} day${step === 1 ? '' : 's'}`;
+	}
 	if (exam && daysToExam != null && daysToExam > 0 && days >= daysToExam) {
 		const atExam = forgetting_curve(W, daysToExam, effective);
 		if (atExam < (options.examTarget ?? EXAM_TARGET)) {
