@@ -6,9 +6,9 @@ import { ObservationError } from './errors';
 import { faultedCircuit, formatFault, standardFaults } from './faults';
 import { FUSE_TYPES, LOAD_TYPES, type Circuit, type Part } from './model';
 import { compileTransient } from './netlist';
-import { buildResult, partState, readingClass, reachableNodes } from './results';
+import { partState, readingClass, reachableNodes } from './results';
 import { settle, type Settled } from './settle';
-import type { Diagnosis, Observation, SolveResult } from './types';
+import type { Diagnosis, Observation, Reads } from './types';
 
 /** Statuses a part can be observed in, or null when it has none. */
 export function statusesOf(p: Part): string[] | null {
@@ -43,13 +43,31 @@ export function checkObservations(c: Circuit, observations: Observation[]): void
 	}
 }
 
-type Outcome = SolveResult | null; // null = dead short
+/** What a diagnosis keeps of one settled solve: part statuses and point reading classes; null = dead short. */
+type Outcome = { parts: Record<string, string | null>; points: Record<string, Reads> } | null;
 
 function matches(r: Outcome, o: Observation): boolean {
 	if (!r) return false;
-	for (const id in o.parts) if (r.parts[id].status !== o.parts[id]) return false;
-	for (const id in o.points) if (r.points[id].reads !== o.points[id]) return false;
+	for (const id in o.parts) if (r.parts[id] !== o.parts[id]) return false;
+	for (const id in o.points) if (r.points[id] !== o.points[id]) return false;
 	return true;
+}
+
+/** Statuses and reading classes of a settled solve, as `buildResult` reports them. */
+function readOutcome(s: Settled): Outcome {
+	if (s.dead) return null;
+	const c = s.net.circuit;
+	const parts: Record<string, string | null> = {};
+	for (let pi = 0; pi < c.parts.length; pi++) parts[c.parts[pi].id] = partState(s, pi, null).status;
+	const points: Record<string, Reads> = {};
+	if (c.points.length) {
+		const reach = reachableNodes(s);
+		for (let q = 0; q < c.points.length; q++) {
+			const node = s.net.pointNode[q];
+			points[c.points[q].label] = readingClass(s.work.V[node], s.net.emf, !!reach[node]);
+		}
+	}
+	return { parts, points };
 }
 
 const OUTCOME_ORDER = ['supply', 'ground', 'partial', 'floating', 'dead-short'];
@@ -85,8 +103,7 @@ export function diagnose(c: Circuit, observations: Observation[]): Diagnosis {
 		const known = cache.get(key);
 		if (known !== undefined) return known;
 		const fc = circuitOf(fi);
-		const s = settle(compileTransient(fc, state, null));
-		const r = s.dead ? null : buildResult(s, fc.fault, false);
+		const r = readOutcome(settle(compileTransient(fc, state, null)));
 		cache.set(key, r);
 		return r;
 	};
@@ -123,7 +140,7 @@ export function diagnose(c: Circuit, observations: Observation[]): Diagnosis {
 				const s = settle(compileTransient(fc, o.state, null));
 				if (!matchesNow(s, o)) ok = false;
 				// a fault still in the running is looked at again for the next test: keep its readings
-				else cache.set(key, s.dead ? null : buildResult(s, fc.fault, false));
+				else cache.set(key, readOutcome(s));
 			}
 			if (!ok) {
 				ruledOut[j]++;
@@ -146,7 +163,7 @@ export function diagnose(c: Circuit, observations: Observation[]): Diagnosis {
 		for (const pt of c.points) {
 			const groups = new Map<string, string[]>();
 			rs.forEach((r, k) => {
-				const cls = r ? r.points[pt.label].reads : 'dead-short';
+				const cls = r ? r.points[pt.label] : 'dead-short';
 				let g = groups.get(cls);
 				if (!g) groups.set(cls, (g = []));
 				g.push(names[k]);

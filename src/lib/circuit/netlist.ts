@@ -76,8 +76,9 @@ export type Net = {
 	seriesOfSource: Uint8Array;
 	/**
 	 * True for a network compiled for one use (a diagnosis's faulted networks, see `compileTransient`):
-	 * nothing is cached by it, its solve structures live in one shared slot, its results are read
-	 * right after settling. The arithmetic is the same as for a cached network.
+	 * nothing is cached by it, its arrays and solve structure live in shared buffers (valid until the
+	 * next transient network is compiled), its results are read right after settling. The arithmetic
+	 * is the same as for a cached network.
 	 */
 	transient: boolean;
 };
@@ -141,7 +142,8 @@ export function compileNet(c: Circuit, state: string | null | undefined, lamp: s
 
 /**
  * Compiles a circuit for one state without caching the network (see `Net.transient`): for a
- * diagnosis, which settles each faulted circuit once per state and keeps only what it read.
+ * diagnosis, which settles each faulted circuit once per state and keeps only what it read. The
+ * network is valid until the next call: settle it and read its results before compiling another.
  * @throws SolveOptionError for an unknown state or lamp point.
  */
 export function compileTransient(c: Circuit, state: string | null | undefined, lamp: string | null | undefined): Net {
@@ -181,12 +183,28 @@ function nodeIndexOf(c: Circuit): Map<string, number> {
 	return m;
 }
 
+/** Buffers of the transient network being used (see `compileTransient`). */
+const oneUse = { f: new Float64Array(0), i: new Int32Array(0), u: new Uint8Array(0) };
+
 /** A bump allocator of typed arrays over one buffer sized up front (zero-filled, like fresh arrays). */
-function arena(nf64: number, ni32: number, nu8: number) {
-	const buf = new ArrayBuffer(nf64 * 8 + ni32 * 4 + nu8);
-	const F = new Float64Array(buf, 0, nf64);
-	const I = new Int32Array(buf, nf64 * 8, ni32);
-	const U = new Uint8Array(buf, nf64 * 8 + ni32 * 4, nu8);
+function arena(nf64: number, ni32: number, nu8: number, reuse: boolean) {
+	let F: Float64Array;
+	let I: Int32Array;
+	let U: Uint8Array;
+	if (reuse) {
+		// a transient network's arrays live in buffers shared by every transient network
+		if (oneUse.f.length < nf64) oneUse.f = new Float64Array(Math.max(nf64, 2 * oneUse.f.length));
+		if (oneUse.i.length < ni32) oneUse.i = new Int32Array(Math.max(ni32, 2 * oneUse.i.length));
+		if (oneUse.u.length < nu8) oneUse.u = new Uint8Array(Math.max(nu8, 2 * oneUse.u.length));
+		F = oneUse.f.fill(0, 0, nf64);
+		I = oneUse.i.fill(0, 0, ni32);
+		U = oneUse.u.fill(0, 0, nu8);
+	} else {
+		const buf = new ArrayBuffer(nf64 * 8 + ni32 * 4 + nu8);
+		F = new Float64Array(buf, 0, nf64);
+		I = new Int32Array(buf, nf64 * 8, ni32);
+		U = new Uint8Array(buf, nf64 * 8 + ni32 * 4, nu8);
+	}
 	let pf = 0;
 	let pi = 0;
 	let pu = 0;
@@ -226,7 +244,7 @@ function buildNet(c: Circuit, state: string | null | undefined, lamp: string | n
 	const nNodes = c.nodeNames.length;
 	// every array of the network in one buffer (one allocation instead of some twenty)
 	const np = c.parts.length;
-	const mem = arena(3 * ne, 7 * ne + nNodes + 9 * np, 2 * ne + 2 * nNodes + 2 * np);
+	const mem = arena(3 * ne, 7 * ne + nNodes + 9 * np, 2 * ne + 2 * nNodes + 2 * np, transient);
 	const code = mem.u8(ne);
 	const ea = mem.i32(ne);
 	const eb = mem.i32(ne);
