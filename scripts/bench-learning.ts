@@ -14,7 +14,8 @@
  * Goals: retention_ours ≥ retention_fixed − 0.01 with reviews_ours ≤ 0.75 · reviews_fixed;
  * placement_items_ours ≤ 0.7 · placement_items_random (= 20); practice accuracy in [0.80, 0.90];
  * readiness Brier ≤ 0.20. Exits 1 when a goal is missed.
- * Tuning knobs: BENCH_LEARNERS, BENCH_SEED, BENCH_OURS and BENCH_RETENTION (JSON), BENCH_CALIBRATE=1.
+ * Tuning knobs: BENCH_LEARNERS, BENCH_SEED, BENCH_OURS and BENCH_RETENTION (JSON), BENCH_CALIBRATE=1 or fit,
+ * BENCH_OFFSET=population|learner|off (the new-skill success offset, docs/learning.md).
  */
 import {
 	addDays,
