@@ -170,6 +170,9 @@ let oFill = new Int32Array(0);
 let oLeft = new Int32Array(0);
 let oPlaced = new Uint8Array(0);
 let oStack = new Int32Array(0);
+let oGroups = new Int32Array(0);
+const NO_F64 = new Float64Array(0);
+const NO_I32 = new Int32Array(0);
 
 function ensureOrderScratch(nn: number, ne: number): void {
 	if (oDeg.length < nn + 1) {
@@ -177,6 +180,7 @@ function ensureOrderScratch(nn: number, ne: number): void {
 		oFill = new Int32Array(nn);
 		oLeft = new Int32Array(nn);
 		oPlaced = new Uint8Array(nn);
+		oGroups = new Int32Array(nn);
 	}
 	if (oAdj.length < 2 * ne) oAdj = new Int32Array(2 * ne);
 	if (oStack.length < nn + 2 * ne) oStack = new Int32Array(nn + 2 * ne);
@@ -225,6 +229,7 @@ function buildStructure(net: Net, cfg: Config, mode: 'keep' | 'scratch' | 'slot'
 	const reuse = scratch || inSlot;
 	if (scratch) ensureNodeScratch(nn, ne);
 	if (inSlot) ensureSlot(nn, ne, 0);
+	ensureOrderScratch(nn, ne);
 	const parent = scratch ? sParent.subarray(0, nn) : inSlot ? slot.parent.subarray(0, nn) : new Int32Array(nn);
 	parent.set(net.baseParent);
 	const nr = net.relayPart.length;
@@ -258,9 +263,6 @@ function buildStructure(net: Net, cfg: Config, mode: 'keep' | 'scratch' | 'slot'
 		srcOn.fill(0);
 	}
 	rowOfSrc.fill(-1);
-	const empty = new Float64Array(0);
-	const none = new Int32Array(0);
-	const s0: Structure = { dead: -1, parent, root, gOf, fixedV, srcOn, rowOfSrc, nv: 0, n: 0, baseA: empty, baseRhs: empty, first: none, last: none };
 	// sources: weighted union-find over merged nodes; a loop of sources and 0 Ω elements is a dead short
 	const srcs = net.sources;
 	for (let s = 0; s < srcs.length; s++) {
@@ -273,7 +275,8 @@ function buildStructure(net: Net, cfg: Config, mode: 'keep' | 'scratch' | 'slot'
 		const pa = spotOf(spar, spot, rp);
 		const pb = spotOf(spar, spot, rm);
 		if (a === b) {
-			if (Math.abs(pa - pb - v) > 1e-9) return { ...s0, dead: e };
+			if (Math.abs(pa - pb - v) > 1e-9)
+				return { dead: e, parent, root, gOf, fixedV, srcOn, rowOfSrc, nv: 0, n: 0, baseA: NO_F64, baseRhs: NO_F64, first: NO_I32, last: NO_I32 };
 			continue;
 		}
 		spar[a] = b;
@@ -285,20 +288,20 @@ function buildStructure(net: Net, cfg: Config, mode: 'keep' | 'scratch' | 'slot'
 	// unknown merged nodes, numbered leaves first so that elimination makes little fill-in
 	const tmp = tmpScratch;
 	tmp.fill(-1, 0, nn);
-	const groups: number[] = [];
+	const groups = oGroups;
+	let ng = 0;
 	for (let i = 0; i < nn; i++) {
 		if (gOf[i] === -2 || root[i] !== i) continue;
 		if (sfind(spar, i) === gTree) {
 			gOf[i] = -1;
 			fixedV[i] = spotOf(spar, spot, i) - gPot;
 		} else {
-			tmp[i] = groups.length;
-			groups.push(i);
+			tmp[i] = ng;
+			groups[ng++] = i;
 		}
 	}
-	const nv = groups.length;
+	const nv = ng;
 	// adjacency of the unknown merged nodes through conducting elements (compressed rows)
-	ensureOrderScratch(nn, ne);
 	const deg = oDeg;
 	deg.fill(0, 0, nv + 1);
 	for (let i = 0; i < ne; i++) {

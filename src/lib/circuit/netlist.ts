@@ -183,40 +183,53 @@ function nodeIndexOf(c: Circuit): Map<string, number> {
 	return m;
 }
 
-/** Buffers of the transient network being used (see `compileTransient`). */
-const oneUse = { f: new Float64Array(0), i: new Int32Array(0), u: new Uint8Array(0) };
+/** The buffer of the transient network being used (see `compileTransient`), grown as needed. */
+let oneUse = new ArrayBuffer(0);
+let oneUseBytes = new Uint8Array(oneUse);
 
-/** A bump allocator of typed arrays over one buffer sized up front (zero-filled, like fresh arrays). */
+/**
+ * A bump allocator of typed arrays over one buffer sized up front (zero-filled, like fresh arrays):
+ * 64-bit floats first, then 32-bit integers, then bytes. With `reuse`, the buffer is the one shared
+ * by every transient network.
+ */
 function arena(nf64: number, ni32: number, nu8: number, reuse: boolean) {
-	let F: Float64Array;
-	let I: Int32Array;
-	let U: Uint8Array;
+	const bytes = nf64 * 8 + ni32 * 4 + nu8;
+	let buf: ArrayBuffer;
 	if (reuse) {
-		// a transient network's arrays live in buffers shared by every transient network
-		if (oneUse.f.length < nf64) oneUse.f = new Float64Array(Math.max(nf64, 2 * oneUse.f.length));
-		if (oneUse.i.length < ni32) oneUse.i = new Int32Array(Math.max(ni32, 2 * oneUse.i.length));
-		if (oneUse.u.length < nu8) oneUse.u = new Uint8Array(Math.max(nu8, 2 * oneUse.u.length));
-		F = oneUse.f.fill(0, 0, nf64);
-		I = oneUse.i.fill(0, 0, ni32);
-		U = oneUse.u.fill(0, 0, nu8);
-	} else {
-		const buf = new ArrayBuffer(nf64 * 8 + ni32 * 4 + nu8);
-		F = new Float64Array(buf, 0, nf64);
-		I = new Int32Array(buf, nf64 * 8, ni32);
-		U = new Uint8Array(buf, nf64 * 8 + ni32 * 4, nu8);
-	}
+		if (oneUse.byteLength < bytes) {
+			oneUse = new ArrayBuffer(Math.max(bytes, 2 * oneUse.byteLength));
+			oneUseBytes = new Uint8Array(oneUse);
+		} else oneUseBytes.fill(0, 0, bytes);
+		buf = oneUse;
+	} else buf = new ArrayBuffer(bytes);
+	const endF = nf64 * 8;
+	const endI = endF + ni32 * 4;
 	let pf = 0;
-	let pi = 0;
-	let pu = 0;
-	const room = (end: number, cap: number): number => {
+	let pi = endF;
+	let pu = endI;
+	const room = (end: number, cap: number): void => {
 		if (end > cap) throw new Error('network arrays sized too small'); // cannot happen: sizes are bounds
-		return end;
 	};
-	const i32 = (n: number): Int32Array => I.subarray(pi, (pi = room(pi + n, ni32)));
+	const i32 = (n: number): Int32Array => {
+		room(pi + 4 * n, endI);
+		const a = new Int32Array(buf, pi, n);
+		pi += 4 * n;
+		return a;
+	};
 	return {
-		f64: (n: number): Float64Array => F.subarray(pf, (pf = room(pf + n, nf64))),
+		f64: (n: number): Float64Array => {
+			room(pf + 8 * n, endF);
+			const a = new Float64Array(buf, pf, n);
+			pf += 8 * n;
+			return a;
+		},
 		i32,
-		u8: (n: number): Uint8Array => U.subarray(pu, (pu = room(pu + n, nu8))),
+		u8: (n: number): Uint8Array => {
+			room(pu + n, bytes);
+			const a = new Uint8Array(buf, pu, n);
+			pu += n;
+			return a;
+		},
 		from: (xs: number[]): Int32Array => {
 			const a = i32(xs.length);
 			a.set(xs);
