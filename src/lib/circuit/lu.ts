@@ -17,7 +17,8 @@ export class SingularMatrixError extends Error {
 
 /**
  * Scratch of a factorisation for matrices up to `cap`×`cap`: row spans (row i has no nonzero left of
- * first[i] or right of last[i]), each row's nonzero columns (`nz`, `cnt`) and a presence mark.
+ * first[i] or right of last[i]), each row's nonzero columns (`nz`, `cnt`) and a presence mark
+ * (an entry is present in the current factorisation when its mark equals `gen`, so no clearing is needed).
  */
 export type Spans = {
 	cap: number;
@@ -25,7 +26,9 @@ export type Spans = {
 	last: Int32Array;
 	nz: Int32Array;
 	cnt: Int32Array;
-	mark: Uint8Array;
+	mark: Int32Array;
+	/** Mark value of the current factorisation. */
+	gen: number;
 	/** True when the last factorisation swapped rows (its row lists then no longer drive the solve). */
 	swapped: boolean;
 };
@@ -38,7 +41,8 @@ export function makeSpans(n: number): Spans {
 		last: new Int32Array(n),
 		nz: new Int32Array(n * n),
 		cnt: new Int32Array(n),
-		mark: new Uint8Array(n * n),
+		mark: new Int32Array(n * n),
+		gen: 0,
 		swapped: false
 	};
 }
@@ -56,6 +60,11 @@ export function makeSpans(n: number): Spans {
 export function luFactor(a: Float64Array, n: number, perm: Int32Array, spans?: Spans, known: boolean | 'lists' = false): void {
 	const sp = spans && spans.cap >= n ? spans : makeSpans(n);
 	const { first, last, nz, cnt, mark } = sp;
+	if (sp.gen >= 0x7ffffffe) {
+		mark.fill(0);
+		sp.gen = 0;
+	}
+	const g = ++sp.gen;
 	let scale = 0;
 	let symmetric = true;
 	for (let i = 0; i < n; i++) {
@@ -64,7 +73,7 @@ export function luFactor(a: Float64Array, n: number, perm: Int32Array, spans?: S
 		if (known === 'lists') {
 			for (let q = 0; q < cnt[i]; q++) {
 				const j = nz[r + q];
-				mark[r + j] = 1;
+				mark[r + j] = g;
 				const v = a[r + j];
 				const m = v < 0 ? -v : v;
 				if (m > scale) scale = m;
@@ -82,7 +91,7 @@ export function luFactor(a: Float64Array, n: number, perm: Int32Array, spans?: S
 			if (f === n) f = j;
 			l = j;
 			nz[r + c++] = j;
-			mark[r + j] = 1;
+			mark[r + j] = g;
 			const m = v < 0 ? -v : v;
 			if (m > scale) scale = m;
 		}
@@ -95,14 +104,10 @@ export function luFactor(a: Float64Array, n: number, perm: Int32Array, spans?: S
 	// a pattern that is not symmetric (not a nodal matrix) takes the scanning path throughout
 	for (let i = 0; i < n && symmetric; i++) {
 		const r = i * n;
-		for (let q = 0; q < cnt[i]; q++) if (!mark[nz[r + q] * n + i]) symmetric = false;
+		for (let q = 0; q < cnt[i]; q++) if (mark[nz[r + q] * n + i] !== g) symmetric = false;
 	}
 	const tol = scale * PIVOT_REL_TOL;
 	const failed = factorColumns(sp, a, n, perm, tol, symmetric);
-	for (let i = 0; i < n; i++) {
-		const r = i * n;
-		for (let q = 0; q < cnt[i]; q++) mark[r + nz[r + q]] = 0;
-	}
 	if (failed >= 0) throw new SingularMatrixError(failed);
 }
 
@@ -210,12 +215,13 @@ function eliminate(sp: Spans, a: Float64Array, n: number, i: number, k: number, 
 	const rk = k * n;
 	const nz = sp.nz;
 	const mark = sp.mark;
+	const g = sp.gen;
 	const ck = sp.cnt[k];
 	for (let q = 0; q < ck; q++) {
 		const j = nz[rk + q];
 		if (j <= k) continue;
-		if (!mark[ri + j]) {
-			mark[ri + j] = 1;
+		if (mark[ri + j] !== g) {
+			mark[ri + j] = g;
 			nz[ri + sp.cnt[i]++] = j;
 			if (j > sp.last[i]) sp.last[i] = j;
 		}
