@@ -112,6 +112,20 @@ describe('composeDailySet', () => {
 		expect(composeDailySet(input({ examDate: '2026-05-20' })).items.some((i) => i.kind === 'new')).toBe(true);
 	});
 
+	it('never leaves a learner with nothing to do: with no review due and no skill above the floor it takes the nearest to the band', () => {
+		// Only hard skills left: σ(−0.5 − 0.5) = 0.269 and σ(0.2 − 0.6) = 0.401, both below the 75 % floor.
+		const hard = [skill('open-location', 'wiring', 0.5), skill('relay-load', 'relays', 0.6)];
+		const set = composeDailySet(input({ skills: hard, cards: {}, lastVariant: {} }));
+		expect(set.items.map((i) => i.skillId)).toEqual(['open-location', 'relay-load']);
+		expect(set.items[0].predictedSuccess).toBeCloseTo(rasch(-0.5, 0.5), 6);
+		expect(set.items[0].reason).toMatch(/below the usual 75 % floor/);
+		// With a review due, the floor holds: the review alone is served.
+		const withReview = composeDailySet(
+			input({ skills: [...hard, skill('relay-contacts', 'relays', 0)], cards: { 'relay-contacts': dueCard('2026-04-18T02:00:00.000Z') }, lastVariant: {} })
+		);
+		expect(withReview.items.map((i) => i.kind)).toEqual(['review']);
+	});
+
 	it('is deterministic for a seed', () => {
 		expect(composeDailySet(input({ seed: 'x' }))).toEqual(composeDailySet(input({ seed: 'x' })));
 	});

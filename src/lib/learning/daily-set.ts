@@ -159,9 +159,14 @@ export function composeDailySet(input: DailySetInput): DailySet {
 	const exam = input.examDate ? checkDay(input.examDate) : null;
 	const closeToExam = exam != null && daysBetween(day, exam) >= 0 && daysBetween(day, exam) <= s.noNewWithinDays;
 	let added = 0;
+	// A set with no review due and no skill at or above the floor would be empty, and the learner would
+	// be told to come back tomorrow with nothing learned: then the floor is dropped for this set and the
+	// nearest skills to the band are taken (the reason says so).
+	const relaxed =
+		items.length === 0 && !unstarted.some((k) => k.variants.length > 0 && predict(k) >= s.newFloor);
 	// New skills only once every due review is in: reviews come first.
 	while (!full && !closeToExam && added < s.maxNew && items.length < s.maxItems) {
-		const open = unstarted.filter((k) => !chosen.has(k.id) && k.variants.length > 0 && predict(k) >= s.newFloor);
+		const open = unstarted.filter((k) => !chosen.has(k.id) && k.variants.length > 0 && (relaxed || predict(k) >= s.newFloor));
 		if (open.length === 0) break;
 		const areas = [...new Set(open.map((k) => k.area))].sort((a, b) => abilityOf(input.abilities, a) - abilityOf(input.abilities, b) || (a < b ? -1 : 1));
 		const area = areas[0];
@@ -174,7 +179,12 @@ export function composeDailySet(input: DailySetInput): DailySet {
 		const v = pick(rng, k.variants);
 		if (!fits(secondsOf(v))) break;
 		const pct = (x: number) => `${Math.round(x * 100)} %`;
-		const where = bandDistance(p, s.band) === 0 ? `inside the ${pct(s.band[0])}–${pct(s.band[1])} band` : `the nearest to the ${pct(s.band[0])}–${pct(s.band[1])} band available`;
+		const where =
+			bandDistance(p, s.band) === 0
+				? `inside the ${pct(s.band[0])}–${pct(s.band[1])} band`
+				: relaxed && p < s.newFloor
+					? `below the usual ${pct(s.newFloor)} floor, the nearest to the ${pct(s.band[0])}–${pct(s.band[1])} band, since nothing easier is left to start`
+					: `the nearest to the ${pct(s.band[0])}–${pct(s.band[1])} band available`;
 		items.push({
 			itemId: v.id,
 			skillId: k.id,
