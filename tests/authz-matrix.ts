@@ -13,8 +13,11 @@ export type Visitor = 'anonymous' | Role;
 /** 'anyone' includes anonymous visitors; 'signed-in' is any account; a list means those roles only. */
 export type Allowed = 'anyone' | 'signed-in' | Role[];
 
-/** What an allowed visitor gets: a 200, or a 303 to this path (compared without the query). */
-export type Outcome = { status: 200 } | { redirect: string };
+/**
+ * What an allowed visitor gets: a 200, a 303 to this path (compared without the query), or, for a JSON
+ * endpoint exercised without a body, the 400 of its input check (it got past the guard).
+ */
+export type Outcome = { status: 200 | 400 } | { redirect: string };
 
 /** Facts a form may need, e.g. the demo accounts' user ids. */
 export type FormContext = { visitor: Visitor; userIds: Record<Role, string>; unique: string };
