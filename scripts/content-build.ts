@@ -5,6 +5,7 @@
  * wrong, what to do. Exits 1 when there are errors.
  *
  *   npm run content:build -- --check [--variants N] [--seed TEXT]
+ *   npm run content:build [--variants N] [--seed TEXT]   (also writes the bank to the app's database)
  */
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { join, relative } from 'node:path';
@@ -27,7 +28,7 @@ function walk(dir: string, ext: string): string[] {
 	return out;
 }
 
-function main(): number {
+async function main(): Promise<number> {
 	const args = process.argv.slice(2);
 	const known = new Set(['--check', '--variants', '--seed']);
 	for (let i = 0; i < args.length; i++) {
@@ -61,11 +62,18 @@ function main(): number {
 	process.stderr.write(`built ${r.stats.items} items in ${(ms / 1000).toFixed(2)} s wall, ${(cpuMs / 1000).toFixed(2)} s CPU (${Math.round((r.stats.items / cpuMs) * 1000)} items/s of CPU); ${r.stats.skipped} forms skipped, ${r.stats.duplicates} duplicates dropped, ${r.stats.diagramChecks} diagrams checked\n`);
 	const s = r.stats;
 	process.stdout.write(JSON.stringify({ items: s.items, families: s.families, kinds: s.kinds, areas: s.areas, errors: s.errors }) + '\n');
-	return s.errors > 0 ? 1 : 0;
+	if (s.errors > 0) return 1;
+	if (!args.includes('--check')) {
+		// Without --check the bank is written to the app's database (DATABASE_URL, or DB_* as npm start uses).
+		const { writeBankToDatabase } = await import('../src/lib/server/seed/bank');
+		const w = await writeBankToDatabase(r.items, files);
+		process.stderr.write(`database: ${w.newItems} new items, ${w.newVersions} new versions (${w.keyChanges} with a changed key, back in review), ${w.unchanged} unchanged; ${w.newFamilies} new families, ${w.familiesBackToReview} families back in review\n`);
+	}
+	return 0;
 }
 
 try {
-	process.exitCode = main();
+	process.exitCode = await main();
 } catch (e) {
 	process.stderr.write(`content build failed: ${(e as Error).message}\n`);
 	process.exitCode = 1;

@@ -196,7 +196,9 @@ export async function writeBankToDatabase(items: BuildResult['items'], sources: 
 			await migrateDatabase();
 		} catch (e) {
 			const where = new URL(process.env.DATABASE_URL).host;
-			throw new Error(`cannot reach the database at ${where} (${(e as Error).message.split('\n')[0]}); start it with \`npm run db:start\`, or set DATABASE_URL`);
+			const cause = (e as { cause?: { code?: string; message?: string } }).cause;
+			const why = cause?.code ?? cause?.message ?? (e as Error).message.split('\n')[0];
+			throw new Error(`cannot reach the database at ${where} (${why}); start it with \`npm run db:start\`, or set DATABASE_URL`);
 		}
 		return await storeBank(items, { onProgress: progressBar(), familyTitles: FAMILY_TITLES, sources });
 	} finally {
