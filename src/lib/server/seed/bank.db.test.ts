@@ -1,4 +1,5 @@
 import { afterAll, describe, expect, it } from 'vitest';
+import { spawnSync } from 'node:child_process';
 import { and, eq, isNotNull, sql } from 'drizzle-orm';
 import { closeDb, getDb } from '../db/client';
 import { item, itemFamily, itemVersion, review } from '../db/schema';
@@ -36,4 +37,23 @@ describe('demo bank seed (MariaDB)', () => {
 		const demo = await getDb().select({ id: item.id, status: item.status }).from(item).where(sql`${item.id} like 'demo-fan-relay-%'`);
 		expect(demo.map((d) => d.status).sort()).toEqual(['draft', 'in_review', 'in_review']);
 	}, 180_000);
+
+	it('npm run content:build (no --check) writes to the database given by the settings, idempotently', () => {
+		const run = () =>
+			spawnSync(process.execPath, ['--import', 'tsx', 'scripts/content-build.ts', '--variants', '1', '--seed', 'db-mode'], {
+				encoding: 'utf8',
+				env: { ...process.env },
+				timeout: 150_000
+			});
+		const first = run();
+		expect(first.stderr).not.toMatch(/\n\s+at /);
+		expect(first.status).toBe(0);
+		const written = /database: (\d+) new items, (\d+) new versions/.exec(first.stderr);
+		expect(written, first.stderr).not.toBeNull();
+		expect(Number(written![1]) + Number(written![2])).toBeGreaterThan(0);
+		expect(first.stderr).toMatch(/storing \[#+\] \d+\/\d+/);
+		const second = run();
+		expect(second.status).toBe(0);
+		expect(second.stderr).toMatch(/database: 0 new items, 0 new versions \(0 with a changed key, back in review\), \d+ unchanged/);
+	}, 320_000);
 });
