@@ -290,3 +290,47 @@ describe('WiringDiagram in Chromium', () => {
 		}
 	});
 });
+
+// The real /gallery route in the built app: runs when the app test project has started the app
+// (TEST_APP_PORT, see tests/helpers/app-global-setup.ts); the static page above needs no app.
+describe.runIf(Boolean(process.env.TEST_APP_PORT))('the /gallery route in the built app', () => {
+	it('sends an anonymous visitor to sign in and refuses a learner', async () => {
+		const { request, signIn, demoAccount } = await import('../helpers/app');
+		const anon = await request('/gallery');
+		expect(anon.status).toBe(303);
+		expect(anon.location).toMatch(/^\/signin\?next=%2Fgallery/);
+		const learner = await request('/gallery', { cookie: await signIn(demoAccount('learner').email) });
+		expect(learner.status).toBe(403);
+	});
+
+	it('shows an author every circuit in each state, passing axe-core', async () => {
+		const { APP_URL, demoAccount } = await import('../helpers/app');
+		const { DEMO_PASSWORD } = await import('../../src/lib/server/seed/demo');
+		const { openPage } = await import('../helpers/browser');
+		const p = await context.newPage();
+		await openPage(p, `${APP_URL}/signin?next=%2Fgallery`);
+		await p.getByLabel('E-mail').fill(demoAccount('author').email);
+		await p.getByLabel('Password').fill(DEMO_PASSWORD);
+		await p.getByRole('button', { name: 'Sign in' }).click();
+		await p.waitForURL(`${APP_URL}/gallery`);
+		await p.waitForSelector('html[data-ready="true"]', { state: 'attached' });
+		const circuits = await loadCircuits();
+		const expected = circuits.reduce((n, c) => n + (c.ok ? c.states.length : 0), 0);
+		expect(await p.$$eval('svg[data-circuit]', (els) => els.length)).toBe(expected);
+		await p.addScriptTag({ path: AXE });
+		const violations = await p.evaluate(async () => {
+			const axe = (window as unknown as { axe: { run: (ctx: Document, o: object) => Promise<{ violations: { id: string; impact: string }[] }> } }).axe;
+			const r = await axe.run(document, { resultTypes: ['violations'] });
+			return r.violations.map((v) => ({ id: v.id, impact: v.impact }));
+		});
+		expect(violations.filter((v) => v.impact === 'serious' || v.impact === 'critical')).toEqual([]);
+		for (const [name, size] of [
+			['desktop', { width: 1280, height: 900 }],
+			['phone', { width: 360, height: 780 }]
+		] as const) {
+			await p.setViewportSize(size);
+			await p.screenshot({ path: path.join(SHOTS, `gallery-route-${name}.png`), fullPage: false });
+		}
+		await p.close();
+	});
+});
