@@ -37,7 +37,7 @@ export default defineConfig({
 				test: {
 					name: 'app',
 					environment: 'node',
-					include: ['tests/app/**/*.test.ts'],
+					include: ['tests/app/**/*.test.ts', 'tests/e2e/**/*.test.ts'],
 					globalSetup: ['tests/helpers/app-global-setup.ts'],
 					fileParallelism: false,
 					testTimeout: 60_000,

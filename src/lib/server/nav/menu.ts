@@ -14,6 +14,7 @@ const ENTRIES: Entry[] = [
 	{ href: '/profile', label: 'Profile', roles: 'signed-in' },
 	{ href: '/author', label: 'Write items', roles: ['author'] },
 	{ href: '/review', label: 'Review', roles: ['reviewer'] },
+	{ href: '/gallery', label: 'Circuits', roles: ['author', 'reviewer', 'instructor', 'site_admin'] },
 	{ href: '/admin/users', label: 'People and roles', roles: ['site_admin'] }
 ];
 
