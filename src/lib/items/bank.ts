@@ -92,7 +92,7 @@ export function buildBank(o: BuildOptions): BuildResult {
 		} catch (e) {
 			if (e instanceof CircuitFileError) {
 				for (const p of e.problems)
-					errors.push({ file: item.circuitFile, line: item.circuitLine - 1 + p.line, message: `circuit: ${p.key}: ${p.message}`, fix: 'correct the circuit (see /work/shared/spec/circuit-format.md)' });
+					errors.push({ file: item.circuitFile, line: item.circuitLine - 1 + p.line, message: `circuit: ${p.key}: ${p.message}`, fix: 'correct the circuit file (the circuit format and its optional keys: DEVELOPERS.md, "The circuit engine")' });
 			} else if (e instanceof ItemError) errors.push({ file, line: lineOf(e.key), message: e.message, fix: e.fix });
 			else if (isEngineError(e)) errors.push({ file, line: lineOf(src.kind === 'claim-check' ? 'claims' : 'ask'), message: e.message, fix: 'correct the ask: name a state, fault, part or point of this circuit' });
 			else throw e;
