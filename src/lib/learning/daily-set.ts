@@ -161,11 +161,12 @@ export function composeDailySet(input: DailySetInput): DailySet {
 	let added = 0;
 	// A set with no review due and no skill at or above the floor would be empty, and the learner would
 	// be told to come back tomorrow with nothing learned: then the floor is dropped for this set and the
-	// nearest skills to the band are taken (the reason says so).
+	// one skill nearest to the band is started (the reason says so).
 	const relaxed =
 		items.length === 0 && !unstarted.some((k) => k.variants.length > 0 && predict(k) >= s.newFloor);
+	const maxNew = relaxed ? Math.min(1, s.maxNew) : s.maxNew;
 	// New skills only once every due review is in: reviews come first.
-	while (!full && !closeToExam && added < s.maxNew && items.length < s.maxItems) {
+	while (!full && !closeToExam && added < maxNew && items.length < s.maxItems) {
 		const open = unstarted.filter((k) => !chosen.has(k.id) && k.variants.length > 0 && (relaxed || predict(k) >= s.newFloor));
 		if (open.length === 0) break;
 		const areas = [...new Set(open.map((k) => k.area))].sort((a, b) => abilityOf(input.abilities, a) - abilityOf(input.abilities, b) || (a < b ? -1 : 1));
