@@ -282,18 +282,25 @@ export function loadStatus(amps: number, emf: number, ohms: number): 'on' | 'wea
 export function buildResult(s: Settled, fault: string | null, needAmps: boolean): SolveResult {
 	const { net, cfg, work: w } = s;
 	const c = net.circuit;
+	const V = w.V;
+	const names = c.nodeNames;
+	const nFile = c.fileNodeCount;
 	const nodes: Record<string, number> = {};
-	for (let i = 0; i < c.fileNodeCount; i++) nodes[c.nodeNames[i]] = roundVolts(w.V[i]);
-	const reach = c.points.length ? reachableNodes(s) : null;
+	for (let i = 0; i < nFile; i++) nodes[names[i]] = roundVolts(V[i]);
+	const pts = c.points;
+	const reach = pts.length ? reachableNodes(s) : null;
 	const points: Record<string, { volts: number; reads: Reads }> = {};
-	for (let q = 0; q < c.points.length; q++) {
-		const pt = c.points[q];
-		const i = net.pointNode[q];
-		points[pt.label] = { volts: roundVolts(w.V[i]), reads: readingClass(w.V[i], net.emf, !!reach![i]) };
+	const pointNode = net.pointNode;
+	const emf = net.emf;
+	for (let q = 0; q < pts.length; q++) {
+		const i = pointNode[q];
+		const v = V[i];
+		points[pts[q].label] = { volts: roundVolts(v), reads: readingClass(v, emf, reach![i] === 1) };
 	}
 	const cur = needAmps ? elementCurrents(s).amps : null;
 	const parts: Record<string, { status: string | null; amps: number }> = {};
-	for (let pi = 0; pi < c.parts.length; pi++) parts[c.parts[pi].id] = partState(s, pi, cur);
+	const ps = c.parts;
+	for (let pi = 0; pi < ps.length; pi++) parts[ps[pi].id] = partState(s, pi, cur);
 	const result: SolveResult = { state: net.state, fault, nodes, points, parts };
 	if (net.lampEl >= 0) {
 		const I = Math.abs(elementAmps(net, w, net.lampEl));
@@ -331,10 +338,7 @@ export function partState(s: Settled, pi: number, cur: Float64Array | null): { s
 			break;
 		}
 		case PartKind.Positioned: {
-			const p = net.circuit.parts[pi];
-			let setting: string | undefined;
-			for (const x of net.circuit.states) if (x.name === net.state) setting = x.switches[p.id];
-			status = setting ?? p.positions![0].name;
+			status = positionedStatus(net, pi);
 			if (cur) for (const e of els) if (net.code[e] === Code.Ideal) amps = Math.max(amps, Math.abs(cur[e]));
 			break;
 		}
@@ -365,6 +369,27 @@ export function partState(s: Settled, pi: number, cur: Float64Array | null): { s
 			break;
 	}
 	return { status, amps: roundAmps(amps) };
+}
+
+/** Setting of every positioned switch in a network's state (the state is fixed per network), by part index. */
+const settingsByNet = new WeakMap<Net, (string | undefined)[]>();
+
+/** Setting of positioned switch `pi` in the network's state, else its first position. */
+function positionedStatus(net: Net, pi: number): string {
+	let settings = settingsByNet.get(net);
+	if (!settings) {
+		settings = new Array<string | undefined>(net.circuit.parts.length);
+		settingsByNet.set(net, settings);
+	}
+	let st = settings[pi];
+	if (st === undefined) {
+		const p = net.circuit.parts[pi];
+		let setting: string | undefined;
+		for (const x of net.circuit.states) if (x.name === net.state) setting = x.switches[p.id];
+		st = setting ?? p.positions![0].name;
+		settings[pi] = st;
+	}
+	return st;
 }
 
 /** Current magnitude of element i: from `cur` when given, else by Ohm's law for resistive elements (0 otherwise). */
