@@ -6,9 +6,10 @@ import { ObservationError } from './errors';
 import { faultedCircuit, formatFault, standardFaults } from './faults';
 import { FUSE_TYPES, LOAD_TYPES, type Circuit, type Part } from './model';
 import { compileTransient } from './netlist';
-import { partState, readingClass, reachableNodes } from './results';
+import { partState, readingClass, reachSets } from './results';
 import { settle, type Settled } from './settle';
 import type { Diagnosis, Observation, Reads } from './types';
+import { findRoot } from './union-find';
 
 /** Statuses a part can be observed in, or null when it has none. */
 export function statusesOf(p: Part): string[] | null {
@@ -61,10 +62,10 @@ function readOutcome(s: Settled): Outcome {
 	for (let pi = 0; pi < c.parts.length; pi++) parts[c.parts[pi].id] = partState(s, pi, null).status;
 	const points: Record<string, Reads> = {};
 	if (c.points.length) {
-		const reach = reachableNodes(s);
+		const reach = reachSets(s);
 		for (let q = 0; q < c.points.length; q++) {
 			const node = s.net.pointNode[q];
-			points[c.points[q].label] = readingClass(s.work.V[node], s.net.emf, !!reach[node]);
+			points[c.points[q].label] = readingClass(s.work.V[node], s.net.emf, reach.live[findRoot(reach.p, node)] === 1);
 		}
 	}
 	return { parts, points };
@@ -113,11 +114,11 @@ export function diagnose(c: Circuit, observations: Observation[]): Diagnosis {
 	const matchesNow = (s: Settled, o: Observation): boolean => {
 		if (s.dead) return false;
 		for (const id in o.parts) if (partState(s, partIdx.get(id)!, null).status !== o.parts[id]) return false;
-		let reach: Uint8Array | null = null;
+		let reach: { p: Int32Array; live: Uint8Array } | null = null;
 		for (const id in o.points) {
 			const node = s.net.pointNode[pointIdx.get(id)!];
-			reach ??= reachableNodes(s);
-			if (readingClass(s.work.V[node], s.net.emf, !!reach[node]) !== o.points[id]) return false;
+			reach ??= reachSets(s);
+			if (readingClass(s.work.V[node], s.net.emf, reach.live[findRoot(reach.p, node)] === 1) !== o.points[id]) return false;
 		}
 		return true;
 	};

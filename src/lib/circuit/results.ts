@@ -242,6 +242,18 @@ function currentPlan(s: Settled): CurrentPlan {
 
 /** Which nodes have a conducting path (meters excluded) to B+, GND or a source terminal. */
 export function reachableNodes(s: Settled): Uint8Array {
+	const { p, live } = reachSets(s);
+	const nn = s.net.nNodes;
+	const out = new Uint8Array(nn);
+	for (let i = 0; i < nn; i++) out[i] = live[findRoot(p, i)];
+	return out;
+}
+
+/**
+ * The conducting sets of a settled solve (union-find `p`) and which roots are live (1): node i is
+ * reachable when `live[findRoot(p, i)] === 1`, as `reachableNodes` reports it.
+ */
+export function reachSets(s: Settled): { p: Int32Array; live: Uint8Array } {
 	const { net, cfg } = s;
 	const nn = net.nNodes;
 	const plan = currentPlan(s);
@@ -256,9 +268,7 @@ export function reachableNodes(s: Settled): Uint8Array {
 	const live = new Uint8Array(nn);
 	const seeds = plan.seeds;
 	for (let q = 0; q < seeds.length; q++) live[findRoot(p, seeds[q])] = 1;
-	const out = new Uint8Array(nn);
-	for (let i = 0; i < nn; i++) out[i] = live[findRoot(p, i)];
-	return out;
+	return { p, live };
 }
 
 /** Reading class from unrounded volts, the battery EMF in force and reachability (spec, bounds inclusive). */
@@ -288,14 +298,14 @@ export function buildResult(s: Settled, fault: string | null, needAmps: boolean)
 	const nodes: Record<string, number> = {};
 	for (let i = 0; i < nFile; i++) nodes[names[i]] = roundVolts(V[i]);
 	const pts = c.points;
-	const reach = pts.length ? reachableNodes(s) : null;
+	const reach = pts.length ? reachSets(s) : null;
 	const points: Record<string, { volts: number; reads: Reads }> = {};
 	const pointNode = net.pointNode;
 	const emf = net.emf;
 	for (let q = 0; q < pts.length; q++) {
 		const i = pointNode[q];
 		const v = V[i];
-		points[pts[q].label] = { volts: roundVolts(v), reads: readingClass(v, emf, reach![i] === 1) };
+		points[pts[q].label] = { volts: roundVolts(v), reads: readingClass(v, emf, reach!.live[findRoot(reach!.p, i)] === 1) };
 	}
 	const cur = needAmps ? elementCurrents(s).amps : null;
 	const parts: Record<string, { status: string | null; amps: number }> = {};
