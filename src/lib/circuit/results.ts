@@ -222,6 +222,22 @@ function currentPlan(s: Settled): CurrentPlan {
 			cores.push({ mem: Int32Array.from(mem), edges: Int32Array.from(es), la, lb, L, perm });
 		}
 	}
+	const { reachBase, seeds } = reachPlan(s);
+	const plan: CurrentPlan = {
+		reachBase,
+		seeds,
+		meterRoots: new Int32Array(meterRoots),
+		steps: new Int32Array(steps),
+		cores
+	};
+	if (w.cacheable) plans.set(w.root, plan);
+	return plan;
+}
+
+/** The reachability part of a current plan: 0 Ω merges with always-conducting elements joined, and the seeds. */
+function reachPlan(s: Settled): { reachBase: Int32Array; seeds: Int32Array } {
+	const { net, work: w } = s;
+	const ne = net.els.length;
 	const reachBase = w.parent.slice();
 	const seeds: number[] = [0, 1];
 	for (let i = 0; i < ne; i++) {
@@ -229,15 +245,7 @@ function currentPlan(s: Settled): CurrentPlan {
 		if (c === Code.Resistor || c === Code.Coil) unite(reachBase, net.ea[i], net.eb[i]);
 		else if (c === Code.Source && w.gOf[net.ea[i]] !== -2) seeds.push(net.ea[i], net.eb[i]);
 	}
-	const plan: CurrentPlan = {
-		reachBase,
-		seeds: new Int32Array(seeds),
-		meterRoots: new Int32Array(meterRoots),
-		steps: new Int32Array(steps),
-		cores
-	};
-	if (w.cacheable) plans.set(w.root, plan);
-	return plan;
+	return { reachBase, seeds: new Int32Array(seeds) };
 }
 
 /** Which nodes have a conducting path (meters excluded) to B+, GND or a source terminal. */
@@ -256,8 +264,9 @@ export function reachableNodes(s: Settled): Uint8Array {
 export function reachSets(s: Settled): { p: Int32Array; live: Uint8Array } {
 	const { net, cfg } = s;
 	const nn = net.nNodes;
-	const plan = currentPlan(s);
-	const p = plan.reachBase.slice();
+	// a kept plan already holds the reachability part; otherwise only that part is computed
+	const plan = s.work.cacheable ? currentPlan(s) : reachPlan(s);
+	const p = s.work.cacheable ? plan.reachBase.slice() : plan.reachBase;
 	for (let f = 0; f < net.fuses.length; f++) if (!cfg.fuseOpen[f]) unite(p, net.ea[net.fuses[f]], net.eb[net.fuses[f]]);
 	for (let d = 0; d < net.diodes.length; d++) {
 		const e = net.diodes[d];
