@@ -9,6 +9,7 @@ import { and, desc, eq, type SQL } from 'drizzle-orm';
 import { getDb, type Db } from '../db/client';
 import { item, itemVersion, review } from '../db/schema';
 import { buildBank } from '../../items/bank';
+import { versionRow } from './bank-store';
 import type { BuildError, BuiltItem } from '../../items/types';
 import { layoutCircuit, readDiagramCircuit, renderSvg } from '../../diagram';
 
@@ -123,27 +124,7 @@ export async function loadMyItem(actor: Actor, itemId: string, db: Db = getDb())
 }
 
 function versionValues(it: BuiltItem, source: string, actor: Actor) {
-	return {
-		itemId: it.id,
-		version: it.version,
-		contentHash: it.contentHash,
-		keyHash: it.keyHash,
-		source,
-		circuitText: it.circuitText,
-		circuitRef: it.circuitRef,
-		stemHtml: it.stemHtml,
-		explanationHtml: it.explanationHtml,
-		ask: it.ask,
-		question: it.question,
-		key: it.key,
-		distractors: it.distractors,
-		cautions: it.cautions,
-		feedback: it.feedback,
-		tags: it.tags,
-		difficulty: it.difficulty,
-		status: 'draft' as const,
-		createdBy: actor.id
-	};
+	return { ...versionRow(it, source, 'draft'), createdBy: actor.id };
 }
 
 /**

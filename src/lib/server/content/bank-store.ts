@@ -50,7 +50,8 @@ export function familyHash(items: readonly BuiltItem[]): string {
 
 type Existing = { id: string; status: string; publishedVersionId: number | null; version: string | null; contentHash: string | null };
 
-function versionRow(it: BuiltItem, source: string | null) {
+/** The item_version row of a built item: everything the build computed, with the given status. */
+export function versionRow(it: BuiltItem, source: string | null, status: 'draft' | 'in_review' = 'in_review') {
 	return {
 		itemId: it.id,
 		version: it.version,
@@ -69,7 +70,7 @@ function versionRow(it: BuiltItem, source: string | null) {
 		feedback: it.feedback,
 		tags: it.tags,
 		difficulty: it.difficulty,
-		status: 'in_review' as const
+		status
 	};
 }
 
