@@ -16,6 +16,11 @@
  * readiness Brier ≤ 0.20. Exits 1 when a goal is missed.
  * Tuning knobs: BENCH_LEARNERS, BENCH_SEED, BENCH_OURS and BENCH_RETENTION (JSON), BENCH_CALIBRATE=1 or fit,
  * BENCH_OFFSET=population|learner|off (the new-skill success offset, docs/learning.md).
+ * BENCH_ORACLE=1 adds the frontier check (docs/learning.md, "Why accuracy and review count conflict"): an
+ * oracle arm that knows each simulated learner's true recall reviews the same skills, introduced on the same
+ * days, whenever the recall at the session would be below a threshold r (and once more before the exam when
+ * the exam-day recall would be below 0.9), for several r; it prints accuracy and reviews against fixed
+ * intervals for each r. It changes nothing in the JSON line.
  */
 import {
 	addDays,
@@ -316,6 +321,44 @@ function runFixed(pool: PoolSkill[], learner: Learner, seed: string, introduced:
 	return { retention: mean([...introduced.keys()].map((id) => learner.recall(pool.find((s) => s.id === id)!, examT)!)), reviews, introduced };
 }
 
+/** Thresholds of the oracle arm (BENCH_ORACLE=1). */
+const ORACLE_THRESHOLDS = [0.75, 0.8, 0.85, 0.88, 0.9, 0.92, 0.95];
+const ORACLE = process.env.BENCH_ORACLE === '1';
+type OracleTally = { reviews: number; right: number; answers: number; retention: number[] };
+
+/**
+ * The oracle arm: the same skills, introduced on the same days as in "ours" (their first answer counts
+ * toward accuracy as in ours), reviewed on a session day when the simulated learner's TRUE recall then is
+ * below r, and on the last day before the exam when the true exam-day recall would be below 0.9.
+ * No scheduler can do better at keeping recall at review near r, so its accuracy and review count for each r
+ * trace the best trade-off this learner model allows for these skills.
+ */
+function runOracle(pool: PoolSkill[], learner: Learner, seed: string, introduced: Map<string, number>, r: number, into: OracleTally) {
+	const rng = makeRng(`${seed}:answers`);
+	const examT = DAYS + EXAM_OFFSET;
+	const skills = [...introduced].map(([id, first]) => ({ skill: pool.find((s) => s.id === id)!, first }));
+	for (let day = 1; day < DAYS; day++) {
+		const t = day + SESSION_OFFSET;
+		for (const { skill, first } of skills) {
+			if (day < first) continue;
+			let isNew = day === first;
+			if (!isNew) {
+				const now = learner.recall(skill, t)!;
+				const last = day === DAYS - 1 && learner.recall(skill, examT)! < 0.9;
+				if (now >= r && !last) continue;
+			}
+			const v = skill.variants[rng.int(skill.variants.length)];
+			const out = answer(rng, learner, skill, v.id, t);
+			into.answers++;
+			if (out.correct) into.right++;
+			if (!isNew) into.reviews++;
+			learner.study(skill, t, out.correct, pool);
+			isNew = false;
+		}
+	}
+	into.retention.push(mean(skills.map(({ skill }) => learner.recall(skill, examT)!)));
+}
+
 function mean(xs: number[]): number {
 	return xs.length ? xs.reduce((a, b) => a + b, 0) / xs.length : 0;
 }
@@ -338,6 +381,7 @@ function main() {
 	let reviewsFixed = 0;
 	let brier = 0;
 	let passes = 0;
+	const oracle = ORACLE_THRESHOLDS.map((r) => ({ r, tally: { reviews: 0, right: 0, answers: 0, retention: [] } as OracleTally }));
 	for (let i = 0; i < LEARNERS; i++) {
 		const zone = ZONES[i % ZONES.length];
 		const make = () => {
@@ -347,6 +391,7 @@ function main() {
 		const mine = make();
 		const o = runOurs(pool, mine, zone, `${seed}:${i}`, difficulty, tally, population);
 		const f = runFixed(pool, make(), `${seed}:${i}`, o.introduced);
+		if (ORACLE) for (const arm of oracle) runOracle(pool, make(), `${seed}:${i}`, o.introduced, arm.r, arm.tally);
 		ret.ours.push(o.retention);
 		ret.fixed.push(f.retention);
 		reviewsOurs += o.reviews;
@@ -383,6 +428,11 @@ function main() {
 	for (const kind of ['new', 'review'] as const) {
 		const k = tally.byKind[kind];
 		console.log(`  ${kind}: ${k.n} answers, ${(k.right / k.n).toFixed(3)} right, ${(k.predicted / k.n).toFixed(3)} predicted (Rasch); simulated: recall ${(k.recall / k.n).toFixed(3)}, Rasch chance ${(k.ceiling / k.n).toFixed(3)}`);
+	}
+	if (ORACLE) {
+		console.log('oracle arm (true recall known; same skills and days as ours): threshold r, practice accuracy, reviews / fixed, exam-day retention − fixed');
+		for (const { r, tally: t } of oracle)
+			console.log(`  r = ${r.toFixed(2)}: accuracy ${(t.right / t.answers).toFixed(4)}, reviews ${t.reviews} = ${(t.reviews / reviewsFixed).toFixed(3)} × fixed, retention ${(mean(t.retention) - mean(ret.fixed)).toFixed(4)}`);
 	}
 	const goals = [
 		['retention within 0.01 of fixed or better', result.retention_ours >= result.retention_fixed - 0.01],
