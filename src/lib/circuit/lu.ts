@@ -55,9 +55,17 @@ export function makeSpans(n: number): Spans {
  * (`nz`, `cnt`; zeros allowed); otherwise the rows are scanned.
  * While no row has been swapped the pattern stays symmetric (as for nodal matrices), so the rows to
  * eliminate below a pivot are read from the pivot row's list; after a swap every row below is scanned.
+ * `symmetricPattern` true promises a symmetric nonzero pattern (skips checking it).
  * @throws SingularMatrixError when a column has no usable pivot.
  */
-export function luFactor(a: Float64Array, n: number, perm: Int32Array, spans?: Spans, known: boolean | 'lists' = false): void {
+export function luFactor(
+	a: Float64Array,
+	n: number,
+	perm: Int32Array,
+	spans?: Spans,
+	known: boolean | 'lists' = false,
+	symmetricPattern = false
+): void {
 	const sp = spans && spans.cap >= n ? spans : makeSpans(n);
 	const { first, last, nz, cnt, mark } = sp;
 	if (sp.gen >= 0x7ffffffe) {
@@ -101,8 +109,9 @@ export function luFactor(a: Float64Array, n: number, perm: Int32Array, spans?: S
 		}
 		cnt[i] = c;
 	}
-	// a pattern that is not symmetric (not a nodal matrix) takes the scanning path throughout
-	for (let i = 0; i < n && symmetric; i++) {
+	// a pattern that is not symmetric (not a nodal matrix) takes the scanning path throughout; a
+	// caller whose matrix is symmetric by construction (equal stamps on both sides) skips the check
+	for (let i = 0; i < n && symmetric && !symmetricPattern; i++) {
 		const r = i * n;
 		for (let q = 0; q < cnt[i]; q++) if (mark[nz[r + q] * n + i] !== g) symmetric = false;
 	}
@@ -210,6 +219,7 @@ function eliminate(sp: Spans, a: Float64Array, n: number, i: number, k: number, 
 	const ri = i * n;
 	const m = a[ri + k];
 	if (m === 0) return;
+	if (recorder) recorder.push(i, k);
 	const f = m / piv;
 	a[ri + k] = f;
 	const rk = k * n;
@@ -262,6 +272,136 @@ export function luSolve(a: Float64Array, n: number, perm: Int32Array, b: Float64
 		} else {
 			const l = spans ? spans.last[i] : n - 1;
 			for (let j = i + 1; j <= l; j++) s -= a[ri + j] * x[j];
+		}
+		x[i] = s / a[ri + i];
+	}
+}
+
+/**
+ * The elimination schedule of one factorisation without row swaps: which rows each pivot
+ * eliminated and each row's final nonzero columns in list order. `luFactorByPlan` and
+ * `luSolveByPlan` replay it on a matrix with the same values, doing the same floating-point
+ * operations in the same order as `luFactor` and `luSolve` (so the results are bit-identical),
+ * without searching for pivots or tracking the pattern.
+ */
+export type LuPlan = {
+	n: number;
+	/** Rows eliminated by pivot k: `rows[rowAt[k]]` up to `rows[rowAt[k + 1] - 1]`. */
+	rowAt: Int32Array;
+	rows: Int32Array;
+	/** Columns right of the diagonal in row k's list, in list order. */
+	upAt: Int32Array;
+	up: Int32Array;
+	/** Columns left of the diagonal in row i's list, in list order. */
+	lowAt: Int32Array;
+	low: Int32Array;
+	/** Every position (row × n + column) that the replay reads or writes: the final pattern and the diagonal. */
+	pos: Int32Array;
+};
+
+/** Pairs (row, pivot) eliminated by the factorisation being recorded, or null. */
+let recorder: number[] | null = null;
+
+/**
+ * `luFactor` (with the same arguments) that also returns its schedule, or null when rows were
+ * swapped or the pattern is not symmetric (such a factorisation is not replayed).
+ * @throws SingularMatrixError as `luFactor`.
+ */
+export function luFactorRecorded(
+	a: Float64Array,
+	n: number,
+	perm: Int32Array,
+	spans: Spans,
+	known: boolean | 'lists' = false,
+	symmetricPattern = false
+): LuPlan | null {
+	const rec: number[] = [];
+	recorder = rec;
+	try {
+		luFactor(a, n, perm, spans, known, symmetricPattern);
+	} finally {
+		recorder = null;
+	}
+	if (spans.swapped || spans.cap < n) return null;
+	const { nz, cnt } = spans;
+	const rowAt = new Int32Array(n + 1);
+	for (let q = 0; q < rec.length; q += 2) rowAt[rec[q + 1] + 1]++;
+	for (let k = 0; k < n; k++) rowAt[k + 1] += rowAt[k];
+	const rows = new Int32Array(rec.length / 2);
+	// recorded pivot by pivot (factorisation goes column by column), so rows are already grouped by k
+	for (let q = 0; q < rec.length; q += 2) rows[q / 2] = rec[q];
+	const upAt = new Int32Array(n + 1);
+	const lowAt = new Int32Array(n + 1);
+	for (let i = 0; i < n; i++) {
+		let u = 0;
+		let l = 0;
+		for (let q = 0; q < cnt[i]; q++) {
+			const j = nz[i * n + q];
+			if (j > i) u++;
+			else if (j < i) l++;
+		}
+		upAt[i + 1] = upAt[i] + u;
+		lowAt[i + 1] = lowAt[i] + l;
+	}
+	const up = new Int32Array(upAt[n]);
+	const low = new Int32Array(lowAt[n]);
+	const pos = new Int32Array(upAt[n] + lowAt[n] + n);
+	let pu = 0;
+	let pl = 0;
+	let pp = 0;
+	for (let i = 0; i < n; i++) {
+		for (let q = 0; q < cnt[i]; q++) {
+			const j = nz[i * n + q];
+			if (j > i) up[pu++] = j;
+			else if (j < i) low[pl++] = j;
+			if (j !== i) pos[pp++] = i * n + j;
+		}
+		pos[pp++] = i * n + i;
+	}
+	return { n, rowAt, rows, upAt, up, lowAt, low, pos };
+}
+
+/** Factors `a` (the same values as when `plan` was recorded) in place by replaying `plan`. */
+export function luFactorByPlan(a: Float64Array, n: number, plan: LuPlan): void {
+	const { rowAt, rows, upAt, up } = plan;
+	for (let k = 0; k < n; k++) {
+		const r0 = rowAt[k];
+		const r1 = rowAt[k + 1];
+		if (r0 === r1) continue;
+		const rk = k * n;
+		const piv = a[rk + k];
+		const u0 = upAt[k];
+		const u1 = upAt[k + 1];
+		for (let r = r0; r < r1; r++) {
+			const ri = rows[r] * n;
+			const f = a[ri + k] / piv;
+			a[ri + k] = f;
+			for (let q = u0; q < u1; q++) {
+				const j = up[q];
+				a[ri + j] -= f * a[rk + j];
+			}
+		}
+	}
+}
+
+/** Solves L·U·x = b for a matrix factored by `luFactorByPlan` (no rows swapped); writes x (may not alias b). */
+export function luSolveByPlan(a: Float64Array, n: number, plan: LuPlan, b: Float64Array, x: Float64Array): void {
+	const { lowAt, low, upAt, up } = plan;
+	for (let i = 0; i < n; i++) {
+		let s = b[i];
+		const ri = i * n;
+		for (let q = lowAt[i]; q < lowAt[i + 1]; q++) {
+			const j = low[q];
+			s -= a[ri + j] * x[j];
+		}
+		x[i] = s;
+	}
+	for (let i = n - 1; i >= 0; i--) {
+		let s = x[i];
+		const ri = i * n;
+		for (let q = upAt[i]; q < upAt[i + 1]; q++) {
+			const j = up[q];
+			s -= a[ri + j] * x[j];
 		}
 		x[i] = s / a[ri + i];
 	}

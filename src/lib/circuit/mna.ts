@@ -9,7 +9,7 @@
  * unknowns, the matrix of the fixed elements and its nonzero pattern) is built once per relay
  * configuration of a compiled network and reused; a solve then adds the fuses and diodes in place.
  */
-import { luFactor, luSolve, makeSpans, type Spans } from './lu';
+import { luFactor, luFactorByPlan, luFactorRecorded, luSolve, luSolveByPlan, makeSpans, type LuPlan, type Spans } from './lu';
 import { Code, type Net } from './netlist';
 import { METER_OHMS } from './tables';
 import { findRoot, unite } from './union-find';
@@ -34,6 +34,12 @@ type Structure = {
 	/** Row k has no nonzero (fuses and diodes included) left of first[k] or right of last[k]. */
 	first: Int32Array;
 	last: Int32Array;
+	/**
+	 * Kept structures only: the LU schedule by fuse and diode configuration (see `maskKey`), null
+	 * where that factorisation swapped rows. The matrix of a structure and configuration is always
+	 * the same, so its schedule, recorded once, replays the same operations.
+	 */
+	plans: Map<number, LuPlan | null> | null;
 };
 
 /** Solver state of the last solve. Internal to the engine; the arrays of a structure are shared, read-only. */
@@ -189,6 +195,16 @@ function ensureOrderScratch(nn: number, ne: number): void {
 let spotScratch = new Float64Array(0);
 let tmpScratch = new Int32Array(0);
 
+/** Fuses opened and diodes conducting as one number (bit per fuse, then per diode), or -1 when they do not fit 30 bits. */
+function maskKey(cfg: Config): number {
+	const nf = cfg.fuseOpen.length;
+	if (nf + cfg.diodeOn.length > 30) return -1;
+	let k = 0;
+	for (let f = 0; f < nf; f++) if (cfg.fuseOpen[f]) k |= 1 << f;
+	for (let d = 0; d < cfg.diodeOn.length; d++) if (cfg.diodeOn[d]) k |= 1 << (nf + d);
+	return k;
+}
+
 function relayKey(relay: Int8Array): number {
 	let k = 0;
 	for (let r = relay.length - 1; r >= 0; r--) k = k * 3 + relay[r];
@@ -276,7 +292,7 @@ function buildStructure(net: Net, cfg: Config, mode: 'keep' | 'scratch' | 'slot'
 		const pb = spotOf(spar, spot, rm);
 		if (a === b) {
 			if (Math.abs(pa - pb - v) > 1e-9)
-				return { dead: e, parent, root, gOf, fixedV, srcOn, rowOfSrc, nv: 0, n: 0, baseA: NO_F64, baseRhs: NO_F64, first: NO_I32, last: NO_I32 };
+				return { dead: e, parent, root, gOf, fixedV, srcOn, rowOfSrc, nv: 0, n: 0, baseA: NO_F64, baseRhs: NO_F64, first: NO_I32, last: NO_I32, plans: null };
 			continue;
 		}
 		spar[a] = b;
@@ -393,7 +409,7 @@ function buildStructure(net: Net, cfg: Config, mode: 'keep' | 'scratch' | 'slot'
 		last = new Int32Array(n);
 	}
 	for (let k = 0; k < n; k++) first[k] = last[k] = k;
-	const st: Structure = { dead: -1, parent, root, gOf, fixedV, srcOn, rowOfSrc, nv, n, baseA, baseRhs, first, last };
+	const st: Structure = { dead: -1, parent, root, gOf, fixedV, srcOn, rowOfSrc, nv, n, baseA, baseRhs, first, last, plans: reuse ? null : new Map() };
 	for (let i = 0; i < ne; i++) {
 		const c = code[i];
 		if (conductive(c)) {
@@ -506,7 +522,15 @@ export function solveLinear(net: Net, cfg: Config, w: Work): boolean {
 	w.nv = st.nv;
 	w.n = n;
 	ensureScratch(n);
-	if (!inPlace) {
+	const mk = st.plans ? maskKey(cfg) : -1;
+	const plan = mk >= 0 ? st.plans!.get(mk) : undefined;
+	if (plan) {
+		// the replay reads and writes only the plan's positions (and the stamps below, which are in it)
+		const pos = plan.pos;
+		const baseA = st.baseA;
+		for (let q = 0; q < pos.length; q++) A[pos[q]] = baseA[pos[q]];
+		rhs.set(st.baseRhs);
+	} else if (!inPlace) {
 		A.set(st.baseA);
 		rhs.set(st.baseRhs);
 		spans.first.set(st.first);
@@ -522,9 +546,16 @@ export function solveLinear(net: Net, cfg: Config, w: Work): boolean {
 		const e = diodes[d];
 		if (cfg.diodeOn[d]) stampInto(st, A, rhs, n, ea[e], eb[e], g[e], g[e] * net.ev[e]);
 	}
+	// the matrix is symmetric by construction (every stamp adds the same to (a, b) and (b, a))
 	if (n > 0) {
-		luFactor(A, n, perm, spans, true);
-		luSolve(A, n, perm, rhs, xs, spans);
+		if (plan) {
+			luFactorByPlan(A, n, plan);
+			luSolveByPlan(A, n, plan, rhs, xs);
+		} else {
+			if (mk >= 0) st.plans!.set(mk, luFactorRecorded(A, n, perm, spans, true, true));
+			else luFactor(A, n, perm, spans, true, true);
+			luSolve(A, n, perm, rhs, xs, spans);
+		}
 	}
 	const V = w.V;
 	const root = st.root;
