@@ -17,6 +17,7 @@ import { answerInSet, nextItem, type Learner, type SetEntry } from './sets';
 import { answerExam, examState, finishExam, startExam, GRACE_SECONDS } from './exam';
 import { answerHistory } from './history';
 import { progressOf } from './progress';
+import { successOffsetAt } from './first-answers';
 import { LearnError } from './errors';
 
 const ZONE = 'America/Chicago';
@@ -121,7 +122,9 @@ describe('the daily set', () => {
 		expect(variants.length).toBeGreaterThan(0);
 		expect(news[0].predictedSuccess).toBeGreaterThanOrEqual(0.75);
 		expect(news[0].reason).toContain('80 %–85 %');
-		const noGuess = 1 / (1 + Math.exp(-(1.2 - b)));
+		// The population's new-skill offset δ shifts the logit (p = g + (1 − g)·σ(θ − b + δ)).
+		const delta = await successOffsetAt(db, now);
+		const noGuess = 1 / (1 + Math.exp(-(1.2 - b + delta)));
 		expect(news[0].predictedSuccess).toBeGreaterThanOrEqual(noGuess - 1e-9);
 		// Closing the tab loses nothing: the same set comes back.
 		const again = await nextItem(db, l, now);

@@ -29,7 +29,8 @@ export type AnswerInput = {
 	now: Date;
 };
 
-export type Recorded = { responseId: number; score: number; correct: boolean; grade: Grade; abilityBefore: number; abilityAfter: number };
+/** What an answer changed; `abilityBefore`, `difficultyBefore` and `guess` are what the Rasch update used. */
+export type Recorded = { responseId: number; score: number; correct: boolean; grade: Grade; abilityBefore: number; abilityAfter: number; difficultyBefore: number; guess: number };
 
 /** Grades with the stored key; a response of the wrong shape is a 400 naming what to send. */
 export function gradeOnServer(it: ServedItem, answer: unknown): Grade {
@@ -126,5 +127,5 @@ export async function recordAnswer(tx: Tx, input: AnswerInput, afterWrites?: () 
 			}
 		});
 	if (afterWrites) await afterWrites();
-	return { responseId, score: grade.score, correct, grade, abilityBefore: ability.value, abilityAfter: newAbility.value };
+	return { responseId, score: grade.score, correct, grade, abilityBefore: ability.value, abilityAfter: newAbility.value, difficultyBefore: difficulty.value, guess };
 }

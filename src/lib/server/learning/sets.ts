@@ -13,6 +13,7 @@ import { itemForLearner, itemAtVersion, publishedItem, publishedItems, skillPrio
 import { LearnError } from './errors';
 import { abilitiesOf, cardsOf, ensureProfile, skillDifficulties } from './profile';
 import { findByKey, isDuplicate, recordAnswer, type Tx } from './record';
+import { populationSuccessOffset } from './first-answers';
 
 export type Learner = { id: string; timeZone: string };
 
@@ -26,6 +27,9 @@ export type SetEntry = {
 	reason: string;
 	correct?: boolean;
 	skipped?: boolean;
+	/** Written with the answer: the skill's difficulty (logits) and guessing chance the Rasch update used. */
+	difficultyBefore?: number;
+	guess?: number;
 };
 
 type SetRow = typeof practiceSet.$inferSelect;
@@ -85,7 +89,7 @@ export async function skillInfos(db: Db): Promise<SkillInfo[]> {
 	return [...bySkill.values()].map(({ guesses, ...k }) => ({ ...k, guess: guesses.reduce((a, b) => a + b, 0) / guesses.length }));
 }
 
-/** Builds today's daily set from the learner's cards, abilities and settings. */
+/** Builds today's daily set from the learner's cards, abilities and settings, with the population's new-skill offset. */
 export async function composeToday(db: Db, learner: Learner, now: Date) {
 	const profile = await ensureProfile(db, learner.id);
 	const { cards, lastVariant } = await cardsOf(db, learner.id);
@@ -98,7 +102,8 @@ export async function composeToday(db: Db, learner: Learner, now: Date) {
 		abilities: await abilitiesOf(db, learner.id),
 		examDate: profile.examDate,
 		settings: { maxItems: profile.dailyItems, maxMinutes: profile.dailyMinutes },
-		seed: `${learner.id}:${learningDay(now, learner.timeZone)}`
+		seed: `${learner.id}:${learningDay(now, learner.timeZone)}`,
+		successOffset: await populationSuccessOffset(db, now)
 	});
 }
 
@@ -267,7 +272,7 @@ export async function answerInSet(db: Db, learner: Learner, req: AnswerRequest, 
 				contextId: set.id,
 				now
 			});
-			entries[set.position] = { ...entry, correct: rec.correct };
+			entries[set.position] = { ...entry, correct: rec.correct, difficultyBefore: rec.difficultyBefore, guess: rec.guess };
 			const position = set.position + 1;
 			const done = set.kind === 'placement' ? position >= PLACEMENT_LENGTH : position >= entries.length;
 			await tx.update(practiceSet).set({ entries, position, finishedAt: done ? now : null }).where(eq(practiceSet.id, set.id));
