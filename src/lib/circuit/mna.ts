@@ -196,7 +196,7 @@ let spotScratch = new Float64Array(0);
 let tmpScratch = new Int32Array(0);
 
 /** Fuses opened and diodes conducting as one number (bit per fuse, then per diode), or -1 when they do not fit 30 bits. */
-function maskKey(cfg: Config): number {
+export function maskKey(cfg: Config): number {
 	const nf = cfg.fuseOpen.length;
 	if (nf + cfg.diodeOn.length > 30) return -1;
 	let k = 0;

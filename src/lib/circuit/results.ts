@@ -4,7 +4,7 @@
  * split where 0 Ω elements form a loop), the linear network, and dead-short loops.
  */
 import { luFactor, luSolve } from './lu';
-import { contactClosed, elementAmps, type Config, type Work } from './mna';
+import { contactClosed, elementAmps, maskKey, type Config, type Work } from './mna';
 import { FUSE_TYPES, LOAD_TYPES } from './model';
 import { Code, PartKind, type Net } from './netlist';
 import type { Settled } from './settle';
@@ -58,14 +58,26 @@ function resistiveOn(net: Net, cfg: Config, i: number, fs: Int32Array, ds: Int32
  * form, with the equal minimum-norm split where they close a loop (a unit-weight Laplacian solve;
  * a tree is solved exactly by peeling leaves). A source's current is reported from its − node to
  * its + node (positive while delivering). Also returns each merged node's meter current by root node.
+ * With `scratch`, both arrays are shared buffers (possibly longer than needed), valid until the next call.
  */
-export function elementCurrents(s: Settled): { amps: Float64Array; meter: Float64Array } {
+export function elementCurrents(s: Settled, scratch = false): { amps: Float64Array; meter: Float64Array } {
 	const { net, cfg, work: w } = s;
 	const ne = net.els.length;
 	const nn = net.nNodes;
 	const plan = currentPlan(s);
-	const amps = new Float64Array(ne);
-	const meter = new Float64Array(nn);
+	let amps: Float64Array;
+	let meter: Float64Array;
+	if (scratch) {
+		if (ampsScratch.length < ne) ampsScratch = new Float64Array(Math.max(ne, 2 * ampsScratch.length));
+		if (meterScratch.length < nn) meterScratch = new Float64Array(Math.max(nn, 2 * meterScratch.length));
+		amps = ampsScratch;
+		meter = meterScratch;
+		amps.fill(0, 0, ne);
+		meter.fill(0, 0, nn);
+	} else {
+		amps = new Float64Array(ne);
+		meter = new Float64Array(nn);
+	}
 	if (inflowScratch.length < nn) inflowScratch = new Float64Array(nn);
 	const inflow = inflowScratch;
 	inflow.fill(0, 0, nn);
@@ -113,6 +125,8 @@ export function elementCurrents(s: Settled): { amps: Float64Array; meter: Float6
 }
 
 let inflowScratch = new Float64Array(0);
+let ampsScratch = new Float64Array(0);
+let meterScratch = new Float64Array(0);
 
 /**
  * How currents of 0 Ω elements and sources follow from KCL in one relay configuration: the order in
@@ -127,6 +141,8 @@ type CurrentPlan = {
 	meterRoots: Int32Array;
 	steps: Int32Array;
 	cores: { mem: Int32Array; edges: Int32Array; la: Int32Array; lb: Int32Array; L: Float64Array; perm: Int32Array }[];
+	/** The conducting sets by fuse and diode configuration (`maskKey`), each fully compressed; read-only. */
+	reachByMask: Map<number, { p: Int32Array; live: Uint8Array }>;
 };
 
 const plans = new WeakMap<Int32Array, CurrentPlan>();
@@ -228,7 +244,8 @@ function currentPlan(s: Settled): CurrentPlan {
 		seeds,
 		meterRoots: new Int32Array(meterRoots),
 		steps: new Int32Array(steps),
-		cores
+		cores,
+		reachByMask: new Map()
 	};
 	if (w.cacheable) plans.set(w.root, plan);
 	return plan;
@@ -259,14 +276,21 @@ export function reachableNodes(s: Settled): Uint8Array {
 
 /**
  * The conducting sets of a settled solve (union-find `p`) and which roots are live (1): node i is
- * reachable when `live[findRoot(p, i)] === 1`, as `reachableNodes` reports it.
+ * reachable when `live[findRoot(p, i)] === 1`, as `reachableNodes` reports it. Read-only (a kept
+ * relay configuration keeps them by fuse and diode configuration).
  */
 export function reachSets(s: Settled): { p: Int32Array; live: Uint8Array } {
 	const { net, cfg } = s;
 	const nn = net.nNodes;
 	// a kept plan already holds the reachability part; otherwise only that part is computed
-	const plan = s.work.cacheable ? currentPlan(s) : reachPlan(s);
-	const p = s.work.cacheable ? plan.reachBase.slice() : plan.reachBase;
+	const kept = s.work.cacheable ? currentPlan(s) : null;
+	const mk = kept ? maskKey(cfg) : -1;
+	if (mk >= 0) {
+		const hit = kept!.reachByMask.get(mk);
+		if (hit) return hit;
+	}
+	const plan = kept ?? reachPlan(s);
+	const p = kept ? plan.reachBase.slice() : plan.reachBase;
 	for (let f = 0; f < net.fuses.length; f++) if (!cfg.fuseOpen[f]) unite(p, net.ea[net.fuses[f]], net.eb[net.fuses[f]]);
 	for (let d = 0; d < net.diodes.length; d++) {
 		const e = net.diodes[d];
@@ -277,6 +301,10 @@ export function reachSets(s: Settled): { p: Int32Array; live: Uint8Array } {
 	const live = new Uint8Array(nn);
 	const seeds = plan.seeds;
 	for (let q = 0; q < seeds.length; q++) live[findRoot(p, seeds[q])] = 1;
+	if (mk >= 0) {
+		for (let i = 0; i < nn; i++) p[i] = findRoot(p, i);
+		kept!.reachByMask.set(mk, { p, live });
+	}
 	return { p, live };
 }
 
@@ -316,7 +344,7 @@ export function buildResult(s: Settled, fault: string | null, needAmps: boolean)
 		const v = V[i];
 		points[pts[q].label] = { volts: roundVolts(v), reads: readingClass(v, emf, reach!.live[findRoot(reach!.p, i)] === 1) };
 	}
-	const cur = needAmps ? elementCurrents(s).amps : null;
+	const cur = needAmps ? elementCurrents(s, true).amps : null;
 	const parts: Record<string, { status: string | null; amps: number }> = {};
 	const ps = c.parts;
 	for (let pi = 0; pi < ps.length; pi++) parts[ps[pi].id] = partState(s, pi, cur);
