@@ -1,11 +1,10 @@
 /**
  * Faults in words, for stems and option labels.
  */
-import { parseFault } from '../circuit';
-import type { CircuitCtx } from './engine';
+import { parseFault, type Circuit } from '../circuit';
 
-/** A fault in words, for stems. */
-export function faultWords(ctx: CircuitCtx, fault: string): string {
+/** A fault in words, for stems, option labels and feedback captions (only the circuit's parts and wires are read). */
+export function faultWords(ctx: { circuit: Pick<Circuit, 'parts' | 'wires'> }, fault: string): string {
 	const f = parseFault(fault);
 	const t = f.target;
 	const part = ctx.circuit.parts.find((p) => p.id === t.split('.')[0]);
@@ -38,3 +37,24 @@ export function faultWords(ctx: CircuitCtx, fault: string): string {
 	}
 }
 
+
+/**
+ * Numbers in a sentence as a person reads them off a meter: volts and ohms to at most 2 decimals,
+ * amps and watts to 3 significant figures (308.6478 A → 309 A, 4.3915 A → 4.39 A, 12.449 V → 12.45 V).
+ * Only a number with a decimal point directly followed by a unit is touched, and only when it has more
+ * decimals than that; a number that rounds to zero loses its minus sign.
+ * For display only: keys, tolerances and grading keep the engine's full values.
+ */
+export function tidyNumbers(text: string): string {
+	return text.replace(/(-?\d+\.\d+)(\s?)(mA|V|A|W|Ω)(?![\w])/g, (whole, num: string, space: string, unit: string) => {
+		const x = Number(num);
+		if (!Number.isFinite(x)) return whole;
+		const decimals = num.split('.')[1].length;
+		let digits: number;
+		if (unit === 'V' || unit === 'Ω') digits = 2;
+		else digits = x === 0 ? 2 : Math.max(0, 2 - Math.floor(Math.log10(Math.abs(x))));
+		if (decimals <= digits) return whole;
+		const shown = x.toFixed(digits);
+		return `${/^-0(\.0*)?$/.test(shown) ? shown.slice(1) : shown}${space}${unit}`;
+	});
+}
