@@ -1,7 +1,8 @@
 /**
  * The virtual bench: circuits to probe, and "find the fault" challenges whose fault stays on the server.
- * A challenge's readings are solved here with the hidden fault; the score compares the readings the
- * learner used with the number of tests the engine's next-best-test strategy (`diagnose`) needs.
+ * A challenge's readings are solved here with the hidden fault and recorded per person (`bench_attempt`);
+ * the score compares the readings recorded with the number of tests the engine's next-best-test
+ * strategy (`diagnose`) needs. Nothing the client says about its readings is read.
  */
 import { randomBytes } from 'node:crypto';
 import { readFile } from 'node:fs/promises';
@@ -10,9 +11,10 @@ import { and, eq } from 'drizzle-orm';
 import { diagnose, formatFault, parseFault, solveCircuit, standardFaults, type Circuit, type Observation } from '$lib/circuit';
 import { readDiagramCircuit } from '$lib/diagram';
 import type { Db } from '../db/client';
-import { benchChallenge, item, itemVersion } from '../db/schema';
+import { benchAttempt, benchChallenge, item, itemVersion } from '../db/schema';
 import { CIRCUITS_DIR } from '../content/circuits';
 import { LearnError } from './errors';
+import type { Tx } from './q';
 
 const LOADS = new Set(['lamp', 'motor', 'horn', 'heater', 'solenoid']);
 const DEMO_RE = /^[a-z0-9][a-z0-9-]{0,80}$/;
@@ -123,14 +125,32 @@ export async function createChallenge(db: Db, user: { id: string; roles: string[
 	return id;
 }
 
-export type ChallengeView = { id: string; circuitRef: string; title: string; circuitText: string; complaint: Observation[]; faults: string[]; states: string[]; points: string[] };
+export type BenchReading = { state: string; red: string; black: string; volts: number | null; note: string | null };
+export type BenchVerdict = { correct: boolean; fault: string; named: string; readingsUsed: number; engineReadings: number; score: number };
+
+export type ChallengeView = {
+	id: string;
+	circuitRef: string;
+	title: string;
+	circuitText: string;
+	complaint: Observation[];
+	faults: string[];
+	states: string[];
+	points: string[];
+	/** The viewer's attempt so far: the readings recorded and, once named, the verdict (a reload resumes it). */
+	attempt: { readings: BenchReading[]; verdict: BenchVerdict | null };
+};
+
+type ReadingKey = { state: string; red: string; black: string };
+type AttemptRow = typeof benchAttempt.$inferSelect;
 
 /** What the learner sees of a challenge: the circuit, the complaint and the list of faults to choose from (never which one). */
-export async function challengeView(db: Db, id: string): Promise<ChallengeView | null> {
+export async function challengeView(db: Db, id: string, userId: string | null = null): Promise<ChallengeView | null> {
 	const [ch] = await db.select().from(benchChallenge).where(eq(benchChallenge.id, id));
 	if (!ch) return null;
 	const c = await benchCircuit(db, ch.circuitRef);
 	if (!c) return null;
+	const [attempt] = userId ? await db.select().from(benchAttempt).where(and(eq(benchAttempt.challengeId, id), eq(benchAttempt.userId, userId))) : [];
 	return {
 		id,
 		circuitRef: ch.circuitRef,
@@ -139,7 +159,11 @@ export async function challengeView(db: Db, id: string): Promise<ChallengeView |
 		complaint: complaintOf(c.engine, ch.fault),
 		faults: noticeableFaults(c.engine),
 		states: statesOf(c.engine),
-		points: Object.keys(readDiagramCircuit(c.text).diagram.points)
+		points: Object.keys(readDiagramCircuit(c.text).diagram.points),
+		attempt: {
+			readings: attempt ? (attempt.readings as ReadingKey[]).map((k) => readMeter(c.engine, ch.fault, k)) : [],
+			verdict: (attempt?.result as BenchVerdict | null | undefined) ?? null
+		}
 	};
 }
 
@@ -150,18 +174,51 @@ async function loadChallenge(db: Db, id: string) {
 	return { ch, c };
 }
 
-/** A meter reading with the hidden fault: red lead on `red`, black on `black` (a point, GND or B+), in `state`. */
-export async function challengeReading(db: Db, req: { challengeId: string; state: string; red: string; black: string }) {
-	const { ch, c } = await loadChallenge(db, req.challengeId);
-	if (!statesOf(c.engine).includes(req.state)) throw new LearnError('bad_state', `"${req.state}" is not a state of this circuit.`, 400, { state: 'unknown state' });
-	const r = solveCircuit(c.engine, { state: req.state, fault: ch.fault });
+/** The meter between `red` and `black` (a point, GND or B+) in `state` under `fault`; throws a LearnError naming a bad state or point. */
+function readMeter(c: Circuit, fault: string, req: ReadingKey): BenchReading {
+	if (!statesOf(c).includes(req.state)) throw new LearnError('bad_state', `"${req.state}" is not a state of this circuit. Pick one from the list.`, 400, { state: 'unknown state' });
+	const r = solveCircuit(c, { state: req.state, fault });
+	const known = (p: string) => p === 'GND' || p === 'B+' || c.points.some((x) => x.label === p);
+	if (!known(req.red)) throw new LearnError('bad_point', `"${req.red}" is not a test point of this circuit. Pick one from the list.`, 400, { red: 'unknown point' });
+	if (!known(req.black)) throw new LearnError('bad_point', `"${req.black}" is not a test point of this circuit. Pick one from the list.`, 400, { black: 'unknown point' });
 	if ('error' in r) return { state: req.state, red: req.red, black: req.black, volts: null, note: 'Dead short: the fuse side of the circuit cannot be read.' };
 	const at = (p: string) => (p === 'GND' ? 0 : p === 'B+' ? (r.nodes['B+'] ?? null) : (r.points[p]?.volts ?? null));
 	const a = at(req.red);
 	const b = at(req.black);
-	if (a === null) throw new LearnError('bad_point', `"${req.red}" is not a test point of this circuit.`, 400, { red: 'unknown point' });
-	if (b === null) throw new LearnError('bad_point', `"${req.black}" is not a test point of this circuit.`, 400, { black: 'unknown point' });
+	if (a === null) throw new LearnError('bad_point', `"${req.red}" cannot be read in this circuit. Pick another point.`, 400, { red: 'unreadable point' });
+	if (b === null) throw new LearnError('bad_point', `"${req.black}" cannot be read in this circuit. Pick another point.`, 400, { black: 'unreadable point' });
 	return { state: req.state, red: req.red, black: req.black, volts: Math.round((a - b) * 1000) / 1000, note: null };
+}
+
+/** The person's attempt row, created empty on first use and locked for the rest of the transaction. */
+async function lockAttempt(tx: Tx, challengeId: string, userId: string): Promise<AttemptRow> {
+	await tx.insert(benchAttempt).ignore().values({ challengeId, userId, readings: [] });
+	const [a] = await tx.select().from(benchAttempt).where(and(eq(benchAttempt.challengeId, challengeId), eq(benchAttempt.userId, userId))).for('update');
+	return a!;
+}
+
+/** Readings one attempt may record; past this the learner is asked to name the fault. */
+export const MAX_READINGS = 200;
+
+/**
+ * A meter reading with the hidden fault: red lead on `red`, black on `black` (a point, GND or B+), in
+ * `state`. Every reading is recorded on the person's attempt (a repeat counts again: it is another
+ * reading taken); readings after the fault has been named are shown but no longer recorded.
+ * `readingsTaken` is the attempt's count.
+ */
+export async function challengeReading(db: Db, userId: string, req: { challengeId: string; state: string; red: string; black: string }): Promise<BenchReading & { readingsTaken: number }> {
+	const { ch, c } = await loadChallenge(db, req.challengeId);
+	const key: ReadingKey = { state: req.state, red: req.red, black: req.black };
+	const reading = readMeter(c.engine, ch.fault, key);
+	const taken = await db.transaction(async (tx) => {
+		const a = await lockAttempt(tx, ch.id, userId);
+		const list = a.readings as ReadingKey[];
+		if (a.result) return list.length;
+		if (list.length >= MAX_READINGS) throw new LearnError('too_many_readings', `You have taken ${MAX_READINGS} readings on this challenge. Name the fault now to see how you did.`, 409);
+		await tx.update(benchAttempt).set({ readings: [...list, key] }).where(and(eq(benchAttempt.challengeId, ch.id), eq(benchAttempt.userId, userId)));
+		return list.length + 1;
+	});
+	return { ...reading, readingsTaken: taken };
 }
 
 /**
@@ -197,8 +254,11 @@ export function sameSymptoms(c: Circuit, a: string, b: string): boolean {
 	return look(a) === look(b);
 }
 
-/** Scores a named fault: right or wrong, the hidden fault, and the readings used against the engine's. */
-export async function judgeGuess(db: Db, req: { challengeId: string; fault: string; readings: number }) {
+/**
+ * Scores a named fault: right or wrong, the hidden fault, and the readings recorded on the person's
+ * attempt against the engine's. The first fault named is final: naming again returns the same verdict.
+ */
+export async function judgeGuess(db: Db, userId: string, req: { challengeId: string; fault: string }): Promise<BenchVerdict> {
 	const { ch, c } = await loadChallenge(db, req.challengeId);
 	let named: string;
 	try {
@@ -209,7 +269,13 @@ export async function judgeGuess(db: Db, req: { challengeId: string; fault: stri
 	// A fault that no reading on the bench can tell from the hidden one counts as found.
 	const correct = named === ch.fault || sameSymptoms(c.engine, named, ch.fault);
 	const engine = engineTests(c.engine, ch.fault);
-	const used = Math.max(0, req.readings);
-	const efficiency = used === 0 ? 1 : Math.min(1, Math.max(engine, 1) / used);
-	return { correct, fault: ch.fault, named, readingsUsed: used, engineReadings: engine, score: correct ? Math.round(efficiency * 100) / 100 : 0 };
+	return db.transaction(async (tx) => {
+		const a = await lockAttempt(tx, ch.id, userId);
+		if (a.result) return a.result as BenchVerdict;
+		const used = (a.readings as ReadingKey[]).length;
+		const efficiency = used === 0 ? 1 : Math.min(1, Math.max(engine, 1) / used);
+		const verdict: BenchVerdict = { correct, fault: ch.fault, named, readingsUsed: used, engineReadings: engine, score: correct ? Math.round(efficiency * 100) / 100 : 0 };
+		await tx.update(benchAttempt).set({ result: verdict, finishedAt: new Date() }).where(and(eq(benchAttempt.challengeId, ch.id), eq(benchAttempt.userId, userId)));
+		return verdict;
+	});
 }

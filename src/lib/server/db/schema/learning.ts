@@ -123,3 +123,26 @@ export const benchChallenge = mysqlTable('bench_challenge', {
 		.notNull()
 		.default(sql`CURRENT_TIMESTAMP`)
 });
+
+/**
+ * One person's attempt at a bench challenge: the readings they took (each solved on the server
+ * with the hidden fault) and, once they name a fault, the verdict. The score counts these readings.
+ */
+export const benchAttempt = mysqlTable(
+	'bench_attempt',
+	{
+		challengeId: varchar('challenge_id', { length: 24 })
+			.notNull()
+			.references(() => benchChallenge.id, { onDelete: 'cascade' }),
+		userId: userRef(),
+		/** `{ state, red, black }` per reading, in the order taken. */
+		readings: json('readings').notNull(),
+		/** The verdict of the first fault named; later guesses return it unchanged. */
+		result: json('result'),
+		createdAt: datetime('created_at', { mode: 'date' })
+			.notNull()
+			.default(sql`CURRENT_TIMESTAMP`),
+		finishedAt: datetime('finished_at', { mode: 'date' })
+	},
+	(t) => [primaryKey({ columns: [t.challengeId, t.userId] })]
+);

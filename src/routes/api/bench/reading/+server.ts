@@ -5,8 +5,8 @@ import { challengeReading } from '$lib/server/learning/bench';
 import { jsonReply, readBody } from '$lib/server/learning/http';
 import { readingSchema } from './schema';
 
-/** One meter reading on a challenge, solved on the server with the hidden fault. */
+/** One meter reading on a challenge, solved on the server with the hidden fault and recorded on the caller's attempt. */
 export const POST: RequestHandler = async (event) => {
-	requireRole(event, 'learner', 'instructor', 'author');
-	return jsonReply(async () => challengeReading(getDb(), await readBody(event, readingSchema)));
+	const user = requireRole(event, 'learner', 'instructor', 'author');
+	return jsonReply(async () => challengeReading(getDb(), user.id, await readBody(event, readingSchema)));
 };
