@@ -66,8 +66,12 @@ async function main(): Promise<number> {
 	if (!args.includes('--check')) {
 		// Without --check the bank is written to the app's database (DATABASE_URL, or DB_* as npm start uses).
 		const { writeBankToDatabase } = await import('../src/lib/server/seed/bank');
-		const w = await writeBankToDatabase(r.items, files);
-		process.stderr.write(`database: ${w.newItems} new items, ${w.newVersions} new versions (${w.keyChanges} with a changed key, back in review), ${w.unchanged} unchanged; ${w.newFamilies} new families, ${w.familiesBackToReview} families back in review\n`);
+		// Only the default build (no --variants, no --seed) is the shipped bank in full; then family items it
+		// no longer makes are retired.
+		const full = variants === undefined && opt('--seed') === undefined;
+		const { FAMILIES } = await import('../src/lib/items/families');
+		const w = await writeBankToDatabase(r.items, files, full ? FAMILIES.map((f) => f.id) : undefined);
+		process.stderr.write(`database: ${w.newItems} new items, ${w.newVersions} new versions (${w.keyChanges} with a changed key, back in review), ${w.unchanged} unchanged; ${w.newFamilies} new families, ${w.familiesBackToReview} families back in review; ${w.retired} family items no longer built retired\n`);
 	}
 	return 0;
 }

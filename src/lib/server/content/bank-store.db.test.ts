@@ -81,7 +81,7 @@ describe('storeBank (MariaDB)', () => {
 		expect(after1).toMatchObject({ versions: items.length, items: items.length });
 
 		const second = await storeBank(items);
-		expect(second).toEqual({ newItems: 0, newVersions: 0, keyChanges: 0, unchanged: items.length, newFamilies: 0, familiesBackToReview: 0 });
+		expect(second).toEqual({ newItems: 0, newVersions: 0, keyChanges: 0, unchanged: items.length, newFamilies: 0, familiesBackToReview: 0, retired: 0 });
 		expect(await counts(ids)).toEqual(after1);
 		const fams = await getDb().select().from(itemFamily).where(eq(itemFamily.id, items.at(-1)!.family!));
 		expect(fams).toHaveLength(1);
@@ -199,5 +199,31 @@ describe('storeBank (MariaDB)', () => {
 		expect((await approveFamily(reviewer, famId)).published).toBe(1);
 		const [served] = await getDb().select().from(item).where(eq(item.id, items[0].id));
 		expect(served.publishedVersionId).toBe(served.latestVersionId);
+	});
+
+	it('retires the items of a complete family that a build no longer makes, and only those', async () => {
+		const items = familyItems(tag());
+		const other = familyItems(tag());
+		const famId = items[0].family!;
+		await storeBank([...items, ...other]);
+		await approveFamily(reviewer, famId);
+		const gone = items.at(-1)!;
+		const kept = items.slice(0, -1);
+
+		// A build of the first family without its last item, stored as that family's full build.
+		const report = await storeBank(kept, { completeFamilies: [famId] });
+		expect(report).toMatchObject({ retired: 1, unchanged: kept.length, newItems: 0 });
+		const rows = await getDb().select({ id: item.id, status: item.status }).from(item).where(inArray(item.id, [...items, ...other].map((i) => i.id)));
+		const status = Object.fromEntries(rows.map((r) => [r.id, r.status]));
+		expect(status[gone.id]).toBe('retired');
+		for (const it of kept) expect(status[it.id]).toBe('published');
+		// The other family was not part of this build's complete families: untouched although absent.
+		for (const it of other) expect(status[it.id]).toBe('in_review');
+		const versions = await getDb().select({ status: itemVersion.status }).from(itemVersion).where(eq(itemVersion.itemId, gone.id));
+		expect(versions.map((v) => v.status)).toEqual(['retired']);
+
+		// Without completeFamilies (part of a bank) nothing is retired, and a repeat run retires nothing more.
+		expect((await storeBank(kept.slice(0, 1))).retired).toBe(0);
+		expect((await storeBank(kept, { completeFamilies: [famId] })).retired).toBe(0);
 	});
 });

@@ -27,6 +27,13 @@ export type StoreOptions = {
 	familyTitles?: Record<string, string>;
 	/** Markdown sources by origin path, stored with hand-written items so reviewers can recompute them. */
 	sources?: Record<string, string>;
+	/**
+	 * Families this build made in full (the shipped build passes every family id). Their stored items that
+	 * the build no longer makes (fewer variants, a changed generator, a family taken out of the list) are
+	 * retired: learners are no longer served them, and their answers stay linked to their versions.
+	 * Leave it out when storing part of a bank.
+	 */
+	completeFamilies?: readonly string[];
 };
 
 export type StoreReport = {
@@ -40,6 +47,8 @@ export type StoreReport = {
 	newFamilies: number;
 	/** Families whose hash changed: back in review. */
 	familiesBackToReview: number;
+	/** Items of a complete family (`completeFamilies`) that the build no longer makes, retired by this run. */
+	retired: number;
 };
 
 /** The hash of a family: every version hash of its items, in id order. */
@@ -80,7 +89,7 @@ export function versionRow(it: BuiltItem, source: string | null, status: 'draft'
  */
 export async function storeBank(items: readonly BuiltItem[], options: StoreOptions = {}): Promise<StoreReport> {
 	const db = options.db ?? getDb();
-	const report: StoreReport = { newItems: 0, newVersions: 0, keyChanges: 0, unchanged: 0, newFamilies: 0, familiesBackToReview: 0 };
+	const report: StoreReport = { newItems: 0, newVersions: 0, keyChanges: 0, unchanged: 0, newFamilies: 0, familiesBackToReview: 0, retired: 0 };
 	const total = items.length;
 	options.onProgress?.({ done: 0, total });
 
@@ -161,7 +170,26 @@ export async function storeBank(items: readonly BuiltItem[], options: StoreOptio
 		}
 		options.onProgress?.({ done: Math.min(total, start + chunk.length), total });
 	}
+	if (options.completeFamilies?.length) report.retired = await retireUnbuilt(db, options.completeFamilies, items);
 	return report;
+}
+
+/** Retires the stored items of the given families that `items` does not contain; returns how many. */
+async function retireUnbuilt(db: Db, families: readonly string[], items: readonly BuiltItem[]): Promise<number> {
+	const built = new Set(items.map((it) => it.id));
+	const stored = await db
+		.select({ id: item.id })
+		.from(item)
+		.where(and(inArray(item.familyId, [...families]), notInArray(item.status, ['retired'])));
+	const gone = stored.map((r) => r.id).filter((id) => !built.has(id));
+	for (let i = 0; i < gone.length; i += BATCH) {
+		const ids = gone.slice(i, i + BATCH);
+		await db.transaction(async (tx) => {
+			await tx.update(itemVersion).set({ status: 'retired' }).where(and(inArray(itemVersion.itemId, ids), notInArray(itemVersion.status, ['retired'])));
+			await tx.update(item).set({ status: 'retired', updatedAt: new Date() }).where(inArray(item.id, ids));
+		});
+	}
+	return gone.length;
 }
 
 /**

@@ -52,7 +52,9 @@ export async function buildAndStoreBank(
 ): Promise<{ build: BuildResult; store: StoreReport }> {
 	const content = readContent();
 	const build = buildBank({ ...content, variantsPerFamily: options.variantsPerFamily });
-	const store = await storeBank(build.items, { onProgress: options.onProgress, familyTitles: FAMILY_TITLES, sources: content.files });
+	// The default build is the shipped bank in full: family items it no longer makes are retired.
+	const completeFamilies = options.variantsPerFamily === undefined ? FAMILIES.map((f) => f.id) : undefined;
+	const store = await storeBank(build.items, { onProgress: options.onProgress, familyTitles: FAMILY_TITLES, sources: content.files, completeFamilies });
 	return { build, store };
 }
 
@@ -185,9 +187,10 @@ export function progressBar(out: NodeJS.WriteStream = process.stderr, label = 's
 
 /**
  * Writes a built bank to the app's database (migrating it first), with a progress bar on stderr.
+ * `completeFamilies`: the families built in full, whose items no longer built are retired (storeBank).
  * Throws an Error whose message says what to do when the database cannot be reached.
  */
-export async function writeBankToDatabase(items: BuildResult['items'], sources: Record<string, string>): Promise<StoreReport> {
+export async function writeBankToDatabase(items: BuildResult['items'], sources: Record<string, string>, completeFamilies?: readonly string[]): Promise<StoreReport> {
 	process.env.DATABASE_URL = appDatabaseUrl();
 	const { migrateDatabase } = await import('../db/migrate');
 	const { closeDb } = await import('../db/client');
@@ -200,7 +203,7 @@ export async function writeBankToDatabase(items: BuildResult['items'], sources: 
 			const why = cause?.code ?? cause?.message ?? (e as Error).message.split('\n')[0];
 			throw new Error(`cannot reach the database at ${where} (${why}); start it with \`npm run db:start\`, or set DATABASE_URL`);
 		}
-		return await storeBank(items, { onProgress: progressBar(), familyTitles: FAMILY_TITLES, sources });
+		return await storeBank(items, { onProgress: progressBar(), familyTitles: FAMILY_TITLES, sources, completeFamilies });
 	} finally {
 		await closeDb();
 	}
