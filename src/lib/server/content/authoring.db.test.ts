@@ -117,11 +117,46 @@ describe('review decisions (MariaDB)', () => {
 		const [published] = await getDb().select().from(item).where(eq(item.id, id));
 		expect(published.status).toBe('published');
 		expect(published.publishedVersionId).toBe(published.latestVersionId);
-		expect(await code(saveDraft(author, draft(id, 'Edit a published item?'), id))).toBe('wrong_state');
 
 		await retireItem(reviewer, id, 'Covered by another item.');
 		const [retired] = await getDb().select().from(item).where(eq(item.id, id));
 		expect(retired.status).toBe('retired');
+		expect(await code(saveDraft(author, draft(id, 'Edit a retired item?'), id))).toBe('wrong_state');
+	});
+
+	it('starts a new version of a published item; learners keep the published one until it is approved', async () => {
+		const id = newId();
+		await saveDraft(author, draft(id));
+		await submitForReview(author, id);
+		await approveItem(reviewer, id);
+		const [v1] = await getDb().select().from(item).where(eq(item.id, id));
+		expect(await loadMyItem(author, id)).toMatchObject({ editable: true, versionStatus: 'published' });
+		// Nothing new to review yet.
+		expect(await code(submitForReview(author, id))).toBe('wrong_state');
+		// Someone else's published item stays closed to this author.
+		expect(await code(saveDraft(otherAuthor, draft(id, 'Not mine'), id))).toBe('forbidden');
+
+		const edited = draft(id, 'With the engine cold, red lead on B and black on ground: what does the meter read?');
+		await saveDraft(author, edited, id);
+		const [v2] = await getDb().select().from(item).where(eq(item.id, id));
+		expect(v2.status).toBe('published');
+		expect(v2.publishedVersionId).toBe(v1.publishedVersionId);
+		expect(v2.latestVersionId).not.toBe(v1.latestVersionId);
+		expect(await loadMyItem(author, id)).toMatchObject({ editable: true, versionStatus: 'draft' });
+		// Going back to the published text would overwrite the served version: refused with a reason.
+		expect(await code(saveDraft(author, draft(id), id))).toBe('invalid');
+
+		await submitForReview(author, id);
+		const [waiting] = await getDb().select().from(item).where(eq(item.id, id));
+		expect(waiting).toMatchObject({ status: 'published', publishedVersionId: v1.publishedVersionId });
+		const r = await loadItemReview(id);
+		expect(r!.diff!.some((d) => d.kind === 'added' && d.text.includes('red lead on B'))).toBe(true);
+
+		await approveItem(reviewer, id);
+		const [served] = await getDb().select().from(item).where(eq(item.id, id));
+		expect(served.publishedVersionId).toBe(v2.latestVersionId);
+		const versions = await getDb().select({ id: itemVersion.id, status: itemVersion.status }).from(itemVersion).where(eq(itemVersion.itemId, id));
+		expect(Object.fromEntries(versions.map((v) => [v.id, v.status]))).toEqual({ [v1.publishedVersionId!]: 'retired', [v2.latestVersionId!]: 'published' });
 	});
 
 	it('shows statistics once an item has 30 responses, and flags negative discrimination', async () => {

@@ -1,7 +1,7 @@
 /**
  * Authoring items in the app: preview (the build of one markdown item, keyed by the engine), drafts,
- * and submitting for review. An author edits only their own drafts and items sent back with changes
- * requested; the id in the front matter is the item's id and cannot change once saved.
+ * and submitting for review. An author edits only their own items: drafts, items sent back with changes
+ * requested, and published items (as a new draft version); the id in the front matter is the item's id and cannot change once saved.
  */
 import { readdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
@@ -75,7 +75,13 @@ function canAuthor(actor: Actor): void {
 	if (!actor.roles.includes('author')) throw new AuthoringError('Writing items is for the author role. Ask a site admin if you need it.', 'forbidden');
 }
 
+/** Version states an author can submit for review. */
 const EDITABLE = new Set(['draft', 'changes_requested']);
+/**
+ * Version states an author can save over: a published version too, whose save starts a new draft version
+ * while learners keep being served the published one until a reviewer approves the new one.
+ */
+const SAVABLE = new Set([...EDITABLE, 'published']);
 
 export type MyItem = { id: string; area: string; kind: string; status: string; versionStatus: string; updatedAt: Date };
 
@@ -118,7 +124,7 @@ export async function loadMyItem(actor: Actor, itemId: string, db: Db = getDb())
 		status: row.status,
 		versionStatus: row.versionStatus,
 		source: row.source ?? '',
-		editable: EDITABLE.has(row.versionStatus),
+		editable: SAVABLE.has(row.versionStatus),
 		comments: comments.filter((c): c is { comment: string; at: Date } => !!c.comment)
 	};
 }
@@ -130,7 +136,8 @@ function versionValues(it: BuiltItem, source: string, actor: Actor) {
 /**
  * Saves markdown as a draft. Without `itemId` it creates the item named by the front matter (refused
  * when that id is taken); with it, it updates the author's own draft (or starts a new draft version of
- * an item sent back). Saving the same text again changes nothing. Returns the item id.
+ * an item sent back or published; a published version keeps being served until the new one is approved).
+ * Saving the same text again changes nothing. Returns the item id.
  */
 export async function saveDraft(actor: Actor, source: string, itemId?: string, db: Db = getDb()): Promise<string> {
 	canAuthor(actor);
@@ -156,15 +163,20 @@ export async function saveDraft(actor: Actor, source: string, itemId?: string, d
 			return it.id;
 		}
 		if (!existing || existing.authorId !== actor.id) throw new AuthoringError('You can only change items you wrote.', existing ? 'forbidden' : 'not_found');
-		if (!existing.versionStatus || !EDITABLE.has(existing.versionStatus))
-			throw new AuthoringError(`This item is ${existing.versionStatus?.replace('_', ' ')}; you can change it only while it is a draft or sent back with changes requested.`, 'wrong_state');
+		if (!existing.versionStatus || !SAVABLE.has(existing.versionStatus))
+			throw new AuthoringError(`This item is ${existing.versionStatus?.replace('_', ' ')}; you can change it while it is a draft, sent back with changes requested, or published.`, 'wrong_state');
 		if (existing.version === it.version) return it.id;
+		// Another stored version with exactly this text (the published one, say) must not be overwritten.
+		const [same] = await tx.select({ status: itemVersion.status }).from(itemVersion).where(and(eq(itemVersion.itemId, it.id), eq(itemVersion.version, it.version)));
+		if (same && same.status !== 'draft')
+			throw new AuthoringError(`This text is the same as the item's ${same.status.replace('_', ' ')} version: change something to save a new draft, or leave the item as it is.`, 'invalid');
 		const meta = { area: it.area, skill: it.skill, kind: it.kind, updatedAt: new Date() };
 		if (existing.versionStatus === 'draft') {
 			await tx.update(itemVersion).set(versionValues(it, source, actor)).where(eq(itemVersion.id, existing.latestVersionId!));
 			await tx.update(item).set(meta).where(eq(item.id, it.id));
 		} else {
-			// Sent back: the reviewed version stays as it was, so the next review can diff against it.
+			// Sent back or published: that version stays as it was (learners keep the published one, and the
+			// next review diffs against it); the change is a new draft version.
 			await tx.insert(itemVersion).values(versionValues(it, source, actor)).onDuplicateKeyUpdate({ set: { status: 'draft', source } });
 			const [v] = await tx.select({ id: itemVersion.id }).from(itemVersion).where(and(eq(itemVersion.itemId, it.id), eq(itemVersion.version, it.version)));
 			await tx
@@ -188,6 +200,7 @@ export async function submitForReview(actor: Actor, itemId: string, db: Db = get
 			.for('update');
 		if (!row || row.authorId !== actor.id) throw new AuthoringError('You can only submit items you wrote.', row ? 'forbidden' : 'not_found');
 		if (row.status === 'in_review') return;
+		if (row.status === 'published') throw new AuthoringError('This item is published and has no new draft: change it and save, then submit the new version.', 'wrong_state');
 		if (!EDITABLE.has(row.status)) throw new AuthoringError(`This item is ${row.status.replace('_', ' ')}; only a draft can be submitted.`, 'wrong_state');
 		const p = previewMarkdown(row.source ?? '', itemId);
 		if (!p.item || p.errors.length) throw new AuthoringError('The item no longer builds: open it, fix the lines listed, and save again.', 'invalid', p.errors);
