@@ -3,7 +3,7 @@
  * `applyFault` is pure: it returns a new circuit and never changes the one given.
  */
 import { FaultError } from './errors';
-import { FUSE_TYPES, LOAD_TYPES, type Circuit, type NetElement, type Part } from './model';
+import { FUSE_TYPES, LOAD_TYPES, elementWith, makeElement, type Circuit, type NetElement, type Part } from './model';
 import { HIGH_RESISTANCE_DEFAULT_OHMS, SHORT_OHMS } from './tables';
 
 /** The fault kinds of the spec. */
@@ -152,7 +152,7 @@ function failWith(text: string, msg: string): never {
 }
 
 function faultElement(a: number, b: number, ohms: number): NetElement {
-	return { id: 'fault', pathId: null, kind: 'fault', role: 'resistor', a, b, ohms, volts: 0, part: -1, position: undefined, stuck: undefined, dead: undefined, mid: undefined, battery: undefined };
+	return makeElement('fault', null, 'fault', 'resistor', a, b, ohms, 0, -1);
 }
 
 /** Splits wire `id` at its midpoint; returns [first-half end node, second-half start node]. */
@@ -168,8 +168,8 @@ function splitWire(x: FaultCtx, id: string, series: boolean): [number, number] {
 	}
 	const half = e.ohms / 2;
 	const role = e.ohms > 0 ? 'resistor' : 'ideal';
-	const h1: NetElement = { ...e, id: `${id}#1`, b: m1, ohms: half, role };
-	const h2: NetElement = { ...e, id: `${id}#2`, a: m2, ohms: half, role };
+	const h1 = elementWith(e, { id: `${id}#1`, b: m1, ohms: half, role });
+	const h2 = elementWith(e, { id: `${id}#2`, a: m2, ohms: half, role });
 	x.elements.splice(i, 1, h1, h2);
 	return [m1, m2];
 }
@@ -213,10 +213,10 @@ function buildFaulted(c: Circuit, f: Fault, text: string): Circuit {
 		case 'shorted': {
 			if (p && dot < 0 && (LOAD_TYPES.has(p.type) || p.type === 'resistor')) {
 				const pi = c.parts.indexOf(p);
-				x.elements = x.elements.map((e) => (e.part === pi && e.role === 'resistor' ? { ...e, ohms: SHORT_OHMS } : e));
+				x.elements = x.elements.map((e) => (e.part === pi && e.role === 'resistor' ? elementWith(e, { ohms: SHORT_OHMS }) : e));
 			} else if (p && p.type === 'relay' && sub === 'coil') {
 				const pi = c.parts.indexOf(p);
-				x.elements = x.elements.map((e) => (e.part === pi && e.role === 'coil' ? { ...e, ohms: SHORT_OHMS, dead: true } : e));
+				x.elements = x.elements.map((e) => (e.part === pi && e.role === 'coil' ? elementWith(e, { ohms: SHORT_OHMS, dead: true }) : e));
 			} else if (p || findWire(c, f.target)) failWith(text, `shorted applies to a load, a resistor or a relay coil (K1.coil), not ${f.target}`);
 			else failWith(text, `unknown fault target "${f.target}"; name a load, a resistor or a relay coil such as K1.coil`);
 			break;
@@ -224,11 +224,11 @@ function buildFaulted(c: Circuit, f: Fault, text: string): Circuit {
 		case 'stuck-closed': {
 			if (p && dot < 0 && p.type === 'switch' && !p.positions) {
 				const pi = c.parts.indexOf(p);
-				x.elements = x.elements.map((e) => (e.part === pi && e.role === 'switch' ? { ...e, stuck: true } : e));
+				x.elements = x.elements.map((e) => (e.part === pi && e.role === 'switch' ? elementWith(e, { stuck: true }) : e));
 			} else if (p && dot < 0 && p.type === 'relay') {
 				const pi = c.parts.indexOf(p);
 				x.elements = x.elements.filter((e) => !(e.part === pi && e.role === 'nc'));
-				x.elements = x.elements.map((e) => (e.part === pi && e.role === 'no' ? { ...e, stuck: true } : e));
+				x.elements = x.elements.map((e) => (e.part === pi && e.role === 'no' ? elementWith(e, { stuck: true }) : e));
 			} else if (p || findWire(c, f.target)) failWith(text, `stuck-closed applies to a single-throw switch or a relay, not ${f.target}`);
 			else failWith(text, `unknown fault target "${f.target}"; name a single-throw switch or a relay`);
 			break;
@@ -258,10 +258,10 @@ function buildFaulted(c: Circuit, f: Fault, text: string): Circuit {
 				x.elements.push(faultElement(m1, m2, ohms));
 			} else if (p && dot < 0 && p.type === 'ground') {
 				const pi = c.parts.indexOf(p);
-				x.elements = x.elements.map((e) => (e.part === pi ? { ...e, ohms: e.ohms + ohms, role: 'resistor' as const } : e));
+				x.elements = x.elements.map((e) => (e.part === pi ? elementWith(e, { ohms: e.ohms + ohms, role: 'resistor' }) : e));
 			} else if (p && p.type === 'connector' && dot >= 0) {
 				if (!cavityOk) failWith(text, `${p.id} has no cavity "${sub}"; its cavities are 1 to ${p.cavities}`);
-				x.elements = x.elements.map((e) => (e.id === f.target ? { ...e, ohms, role: 'resistor' as const } : e));
+				x.elements = x.elements.map((e) => (e.id === f.target ? elementWith(e, { ohms, role: 'resistor' }) : e));
 			} else if (p) failWith(text, `high-resistance applies to a wire, a ground or a connector cavity, not ${f.target}`);
 			else failWith(text, `unknown fault target "${f.target}"; name a wire, a ground or a cavity like C1.3`);
 			break;

@@ -152,3 +152,46 @@ export type Circuit = {
 export function nodeIndex(c: Circuit, name: string): number {
 	return c.nodeNames.indexOf(name);
 }
+
+/**
+ * One electrical element with every field present, in one order: every element then has one
+ * object shape, so the engine's loops over elements read their fields at one shape's offsets.
+ */
+export function makeElement(
+	id: string,
+	pathId: string | null,
+	kind: NetElement['kind'],
+	role: NetElement['role'],
+	a: number,
+	b: number,
+	ohms: number,
+	volts: number,
+	part: number,
+	position?: string,
+	stuck?: boolean,
+	dead?: boolean,
+	mid?: number,
+	battery?: boolean
+): NetElement {
+	return { id, pathId, kind, role, a, b, ohms, volts, part, position, stuck, dead, mid, battery };
+}
+
+/** A copy of element `e` with the fields of `x` changed (same shape as `makeElement`); `e` is unchanged. */
+export function elementWith(e: NetElement, x: Partial<Omit<NetElement, 'pathId'>>): NetElement {
+	return makeElement(
+		x.id ?? e.id,
+		e.pathId,
+		x.kind ?? e.kind,
+		x.role ?? e.role,
+		x.a ?? e.a,
+		x.b ?? e.b,
+		x.ohms ?? e.ohms,
+		x.volts ?? e.volts,
+		x.part ?? e.part,
+		x.position ?? e.position,
+		x.stuck ?? e.stuck,
+		x.dead ?? e.dead,
+		x.mid ?? e.mid,
+		x.battery ?? e.battery
+	);
+}

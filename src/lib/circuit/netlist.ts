@@ -3,7 +3,7 @@
  * for the solver. Everything the settling loop does not change is fixed here once.
  */
 import { SolveOptionError } from './errors';
-import { FUSE_TYPES, LOAD_TYPES, type Circuit, type NetElement } from './model';
+import { FUSE_TYPES, LOAD_TYPES, makeElement, type Circuit, type NetElement } from './model';
 import { TEST_LAMP_WATTS } from './tables';
 import { unite } from './union-find';
 
@@ -62,8 +62,9 @@ export type Net = {
 	lampOhms: number;
 	/** Node index of each labelled point, in file order. */
 	pointNode: Int32Array;
-	/** Element indices of each part, in file order. */
-	partEls: number[][];
+	/** Element indices of part q, in file order: `partElList[partElAt[q]]` up to `partElList[partElAt[q + 1] - 1]`. */
+	partElAt: Int32Array;
+	partElList: Int32Array;
 	/** Fuse slot, diode slot and relay index of each element (-1 where none). */
 	fuseSlot: Int32Array;
 	diodeSlot: Int32Array;
@@ -183,60 +184,124 @@ function nodeIndexOf(c: Circuit): Map<string, number> {
 	return m;
 }
 
-/** The buffer of the transient network being used (see `compileTransient`), grown as needed. */
-let oneUse = new ArrayBuffer(0);
-let oneUseBytes = new Uint8Array(oneUse);
+/** The typed arrays of one network, all views on one buffer (one allocation instead of some thirty). */
+type NetArrays = {
+	bytes: Uint8Array;
+	code: Uint8Array;
+	ea: Int32Array;
+	eb: Int32Array;
+	g: Float64Array;
+	ev: Float64Array;
+	emid: Int32Array;
+	metered: Uint8Array;
+	dormant: Uint8Array;
+	baseParent: Int32Array;
+	fuses: Int32Array;
+	fuseRating: Float64Array;
+	relayPart: Int32Array;
+	relayNo: Int32Array;
+	relayNc: Int32Array;
+	relayCoil: Int32Array;
+	relay85: Int32Array;
+	relay86: Int32Array;
+	relayDead: Uint8Array;
+	relayWelded: Uint8Array;
+	pullInMv: Int32Array;
+	dropOutMv: Int32Array;
+	diodes: Int32Array;
+	sources: Int32Array;
+	fuseSlot: Int32Array;
+	diodeSlot: Int32Array;
+	relayOfEl: Int32Array;
+	relayOfPart: Int32Array;
+	seriesOfSource: Uint8Array;
+	partElAt: Int32Array;
+	partElList: Int32Array;
+};
 
-/**
- * A bump allocator of typed arrays over one buffer sized up front (zero-filled, like fresh arrays):
- * 64-bit floats first, then 32-bit integers, then bytes. With `reuse`, the buffer is the one shared
- * by every transient network.
- */
-function arena(nf64: number, ni32: number, nu8: number, reuse: boolean) {
-	const bytes = nf64 * 8 + ni32 * 4 + nu8;
-	let buf: ArrayBuffer;
-	if (reuse) {
-		if (oneUse.byteLength < bytes) {
-			oneUse = new ArrayBuffer(Math.max(bytes, 2 * oneUse.byteLength));
-			oneUseBytes = new Uint8Array(oneUse);
-		} else oneUseBytes.fill(0, 0, bytes);
-		buf = oneUse;
-	} else buf = new ArrayBuffer(bytes);
-	const endF = nf64 * 8;
-	const endI = endF + ni32 * 4;
+/** Allocates zero-filled arrays for ne elements, nn nodes, np parts, nr relays, nf fuses, nd diodes, ns sources. */
+function makeArrays(ne: number, nn: number, np: number, nr: number, nf: number, nd: number, ns: number): NetArrays {
+	const nf64 = 2 * ne + nf;
+	const ni32 = 7 * ne + nn + 8 * nr + nf + nd + ns + 2 * np + 1;
+	const nu8 = 2 * ne + 2 * nn + 2 * nr;
+	const buf = new ArrayBuffer(nf64 * 8 + ni32 * 4 + nu8);
 	let pf = 0;
-	let pi = endF;
-	let pu = endI;
-	const room = (end: number, cap: number): void => {
-		if (end > cap) throw new Error('network arrays sized too small'); // cannot happen: sizes are bounds
+	let pi = nf64 * 8;
+	let pu = pi + ni32 * 4;
+	const f64 = (n: number): Float64Array => {
+		const a = new Float64Array(buf, pf, n);
+		pf += 8 * n;
+		return a;
 	};
 	const i32 = (n: number): Int32Array => {
-		room(pi + 4 * n, endI);
 		const a = new Int32Array(buf, pi, n);
 		pi += 4 * n;
 		return a;
 	};
-	return {
-		f64: (n: number): Float64Array => {
-			room(pf + 8 * n, endF);
-			const a = new Float64Array(buf, pf, n);
-			pf += 8 * n;
-			return a;
-		},
-		i32,
-		u8: (n: number): Uint8Array => {
-			room(pu + n, bytes);
-			const a = new Uint8Array(buf, pu, n);
-			pu += n;
-			return a;
-		},
-		from: (xs: number[]): Int32Array => {
-			const a = i32(xs.length);
-			a.set(xs);
-			return a;
-		}
+	const u8 = (n: number): Uint8Array => {
+		const a = new Uint8Array(buf, pu, n);
+		pu += n;
+		return a;
 	};
+	const a: NetArrays = {
+		bytes: new Uint8Array(buf),
+		g: f64(ne),
+		ev: f64(ne),
+		fuseRating: f64(nf),
+		ea: i32(ne),
+		eb: i32(ne),
+		emid: i32(ne),
+		fuseSlot: i32(ne),
+		diodeSlot: i32(ne),
+		relayOfEl: i32(ne),
+		partElList: i32(ne),
+		baseParent: i32(nn),
+		relayPart: i32(nr),
+		relayNo: i32(nr),
+		relayNc: i32(nr),
+		relayCoil: i32(nr),
+		relay85: i32(nr),
+		relay86: i32(nr),
+		pullInMv: i32(nr),
+		dropOutMv: i32(nr),
+		fuses: i32(nf),
+		diodes: i32(nd),
+		sources: i32(ns),
+		relayOfPart: i32(np),
+		partElAt: i32(np + 1),
+		code: u8(ne),
+		seriesOfSource: u8(ne),
+		metered: u8(nn),
+		dormant: u8(nn),
+		relayDead: u8(nr),
+		relayWelded: u8(nr)
+	};
+	if (pf !== nf64 * 8 || pi !== nf64 * 8 + ni32 * 4 || pu !== buf.byteLength) throw new Error('network arrays laid out wrongly'); // cannot happen: the sizes above are the views'
+	return a;
 }
+
+/**
+ * Arrays of transient networks by layout (the sizes above): a transient network reuses the arrays of
+ * the last one with its layout (they are valid until the next transient network is compiled).
+ */
+const transientArrays = new Map<string, NetArrays>();
+
+function arraysFor(ne: number, nn: number, np: number, nr: number, nf: number, nd: number, ns: number, transient: boolean): NetArrays {
+	if (!transient) return makeArrays(ne, nn, np, nr, nf, nd, ns);
+	const key = `${ne},${nn},${np},${nr},${nf},${nd},${ns}`;
+	let a = transientArrays.get(key);
+	if (a) a.bytes.fill(0);
+	else {
+		if (transientArrays.size >= 64) transientArrays.clear();
+		transientArrays.set(key, (a = makeArrays(ne, nn, np, nr, nf, nd, ns)));
+	}
+	return a;
+}
+
+/** Scratch of the first pass over a circuit's elements: relay index by part, relay parts, elements per part. */
+let relayByPart = new Int32Array(0);
+let relayParts = new Int32Array(0);
+let partFill = new Int32Array(0);
 
 function buildNet(c: Circuit, state: string | null | undefined, lamp: string | null | undefined, transient = false): Net {
 	const nodeIdx = nodeIndexOf(c);
@@ -244,44 +309,78 @@ function buildNet(c: Circuit, state: string | null | undefined, lamp: string | n
 	if (st === undefined)
 		throw new SolveOptionError('state', `unknown state "${state}"; this circuit's states are ${c.states.map((s) => s.name).join(', ') || 'none'}`);
 	const emf = st?.supply ?? c.supply.volts;
-	const els = c.elements.slice();
+	// a network never changes its elements, so without a lamp it shares the circuit's (never changed either)
+	let els = c.elements;
 	let lampEl = -1;
 	let lampOhms = 0;
 	if (lamp) {
 		const [a, b] = lampEnds(c, lamp);
 		lampOhms = (c.supply.volts * c.supply.volts) / TEST_LAMP_WATTS;
+		els = els.slice();
 		lampEl = els.length;
-		els.push({ id: 'lamp', pathId: null, kind: 'lamp', role: 'resistor', a, b, ohms: lampOhms, volts: 0, part: -1 });
+		els.push(makeElement('lamp', null, 'lamp', 'resistor', a, b, lampOhms, 0, -1));
 	}
 	const ne = els.length;
 	const nNodes = c.nodeNames.length;
-	// every array of the network in one buffer (one allocation instead of some twenty)
 	const np = c.parts.length;
-	const mem = arena(3 * ne, 7 * ne + nNodes + 9 * np, 2 * ne + 2 * nNodes + 2 * np, transient);
-	const code = mem.u8(ne);
-	const ea = mem.i32(ne);
-	const eb = mem.i32(ne);
-	const g = mem.f64(ne);
-	const ev = mem.f64(ne);
-	const emid = mem.i32(ne).fill(-1);
-	const baseParent = mem.i32(nNodes);
+	// first pass: counts (array sizes), relays numbered in order of their first element, elements per part
+	if (relayByPart.length < np) {
+		relayByPart = new Int32Array(np);
+		relayParts = new Int32Array(np);
+		partFill = new Int32Array(np + 1);
+	}
+	relayByPart.fill(-1, 0, np);
+	partFill.fill(0, 0, np + 1);
+	let nr = 0;
+	let nf = 0;
+	let nd = 0;
+	let ns = 0;
+	for (let i = 0; i < ne; i++) {
+		const e = els[i];
+		const role = e.role;
+		if (role === 'fuse') nf++;
+		else if (role === 'diode') nd++;
+		else if (role === 'source') ns++;
+		else if ((role === 'no' || role === 'nc' || role === 'coil') && relayByPart[e.part] < 0) {
+			relayByPart[e.part] = nr;
+			relayParts[nr++] = e.part;
+		}
+		if (e.part >= 0) partFill[e.part + 1]++;
+	}
+	const arr = arraysFor(ne, nNodes, np, nr, nf, nd, ns, transient);
+	const { code, ea, eb, g, ev, emid, baseParent, fuses, diodes, sources, fuseSlot, diodeSlot, relayOfEl, seriesOfSource } = arr;
+	const { relayPart, relayNo, relayNc, relayCoil, relay85, relay86, relayDead, relayWelded, pullInMv, dropOutMv, relayOfPart } = arr;
+	const { partElAt, partElList } = arr;
+	for (let q = 0; q < np; q++) {
+		partFill[q + 1] += partFill[q];
+		partElAt[q + 1] = partFill[q + 1];
+		relayOfPart[q] = relayByPart[q];
+	}
+	for (let r = 0; r < nr; r++) {
+		relayPart[r] = relayParts[r];
+		relayNo[r] = relayNc[r] = relayCoil[r] = -1;
+	}
 	for (let i = 0; i < nNodes; i++) baseParent[i] = i;
-	const fuses: number[] = [];
-	const diodes: number[] = [];
-	const sources: number[] = [];
-	const relayIdx = new Map<number, number>();
-	const relayPart: number[] = [];
+	let kf = 0;
+	let kd = 0;
+	let ks = 0;
 	for (let i = 0; i < ne; i++) {
 		const e = els[i];
 		ea[i] = e.a;
 		eb[i] = e.b;
+		emid[i] = -1;
+		fuseSlot[i] = -1;
+		diodeSlot[i] = -1;
+		relayOfEl[i] = -1;
 		const p = e.part >= 0 ? c.parts[e.part] : null;
+		if (p) partElList[partFill[e.part]++] = i;
 		switch (e.role) {
 			case 'resistor': {
 				let ohms = e.ohms;
 				if (p && p.type === 'resistor' && st && st.resistors[p.id] !== undefined && e.ohms === p.ohms) ohms = st.resistors[p.id];
 				code[i] = Code.Resistor;
 				g[i] = 1 / ohms;
+				if (e.kind === 'source') seriesOfSource[i] = 1;
 				break;
 			}
 			case 'ideal':
@@ -290,7 +389,8 @@ function buildNet(c: Circuit, state: string | null | undefined, lamp: string | n
 			case 'fuse':
 				code[i] = Code.Fuse;
 				g[i] = 1 / e.ohms;
-				fuses.push(i);
+				fuseSlot[i] = kf;
+				fuses[kf++] = i;
 				break;
 			case 'switch': {
 				const setting = (st && st.switches[p!.id]) ?? p!.normally;
@@ -305,14 +405,21 @@ function buildNet(c: Circuit, state: string | null | undefined, lamp: string | n
 			case 'no':
 			case 'nc':
 			case 'coil': {
-				let r = relayIdx.get(e.part);
-				if (r === undefined) {
-					r = relayPart.length;
-					relayIdx.set(e.part, r);
-					relayPart.push(e.part);
+				const r = relayByPart[e.part];
+				relayOfEl[i] = r;
+				if (e.role === 'no') {
+					code[i] = Code.RelayNo;
+					relayNo[r] = i;
+					if (e.stuck) relayWelded[r] = 1;
+				} else if (e.role === 'nc') {
+					code[i] = Code.RelayNc;
+					relayNc[r] = i;
+				} else {
+					code[i] = Code.Coil;
+					g[i] = 1 / e.ohms;
+					relayCoil[r] = i;
+					if (e.dead) relayDead[r] = 1;
 				}
-				code[i] = e.role === 'no' ? Code.RelayNo : e.role === 'nc' ? Code.RelayNc : Code.Coil;
-				if (e.role === 'coil') g[i] = 1 / e.ohms;
 				break;
 			}
 			case 'diode':
@@ -320,89 +427,52 @@ function buildNet(c: Circuit, state: string | null | undefined, lamp: string | n
 				g[i] = 1 / e.ohms;
 				ev[i] = e.volts;
 				emid[i] = e.mid!;
-				diodes.push(i);
+				diodeSlot[i] = kd;
+				diodes[kd++] = i;
 				break;
 			case 'source':
 				code[i] = Code.Source;
 				ev[i] = e.battery ? emf : e.volts;
-				sources.push(i);
+				sources[ks++] = i;
 				break;
 		}
 		if (code[i] === Code.Ideal) unite(baseParent, e.a, e.b);
 	}
 	// relays: from the part list, so a relay with every element removed by a fault still reports
-	const nr = relayPart.length;
-	const relayNo = mem.i32(nr).fill(-1);
-	const relayNc = mem.i32(nr).fill(-1);
-	const relayCoil = mem.i32(nr).fill(-1);
-	const relay85 = mem.i32(nr);
-	const relay86 = mem.i32(nr);
-	const relayDead = mem.u8(nr);
-	const relayWelded = mem.u8(nr);
-	const pullInMv = mem.i32(nr);
-	const dropOutMv = mem.i32(nr);
 	for (let r = 0; r < nr; r++) {
 		const p = c.parts[relayPart[r]];
 		relay85[r] = nodeIdx.get(`${p.id}.85`)!;
 		relay86[r] = nodeIdx.get(`${p.id}.86`)!;
 		pullInMv[r] = Math.round(p.pullIn! * 1000);
 		dropOutMv[r] = Math.round(p.dropOut! * 1000);
-		relayDead[r] = c.deadCoils.includes(p.id) ? 1 : 0;
+		if (relayCoil[r] < 0 || c.deadCoils.includes(p.id)) relayDead[r] = 1;
 	}
-	for (let i = 0; i < ne; i++) {
-		const e = els[i];
-		if (e.role !== 'no' && e.role !== 'nc' && e.role !== 'coil') continue;
-		const r = relayIdx.get(e.part)!;
-		if (e.role === 'no') {
-			relayNo[r] = i;
-			if (e.stuck) relayWelded[r] = 1;
-		} else if (e.role === 'nc') relayNc[r] = i;
-		else {
-			relayCoil[r] = i;
-			if (e.dead) relayDead[r] = 1;
-		}
-	}
-	for (let r = 0; r < nr; r++) if (relayCoil[r] < 0) relayDead[r] = 1;
-	const metered = mem.u8(nNodes);
+	const metered = arr.metered;
+	const fileNodes = c.fileNodeCount;
 	for (let i = 0; i < nNodes; i++) {
 		const n = c.nodeNames[i];
-		metered[i] = i !== 1 && !(i >= c.fileNodeCount && (n.endsWith('#int') || n.endsWith('#emf'))) ? 1 : 0;
+		metered[i] = i !== 1 && !(i >= fileNodes && (n.endsWith('#int') || n.endsWith('#emf'))) ? 1 : 0;
 	}
 	// internal nodes that no element touches (a removed diode's midpoint) stay out of the matrix
-	const dormant = mem.u8(nNodes);
-	for (let i = c.fileNodeCount; i < nNodes; i++) dormant[i] = metered[i] ? 0 : 1;
+	const dormant = arr.dormant;
+	for (let i = fileNodes; i < nNodes; i++) dormant[i] = metered[i] ? 0 : 1;
 	for (let i = 0; i < ne; i++) {
 		dormant[ea[i]] = 0;
 		dormant[eb[i]] = 0;
 		if (emid[i] >= 0) dormant[emid[i]] = 0;
 	}
-	const fuseRating = mem.f64(fuses.length);
-	fuses.forEach((ei, k) => {
-		const p = c.parts[els[ei].part];
+	const fuseRating = arr.fuseRating;
+	for (let k = 0; k < nf; k++) {
+		const p = c.parts[els[fuses[k]].part];
 		fuseRating[k] = FUSE_TYPES.has(p.type) ? p.rating! : Infinity;
-	});
-	const shared = sharedOf(c, nodeIdx);
-	const pointNode = shared.pointNode;
-	const partEls: number[][] = c.parts.map(() => []);
-	for (let i = 0; i < ne; i++) if (els[i].part >= 0) partEls[els[i].part].push(i);
-	const fuseSlot = mem.i32(ne).fill(-1);
-	fuses.forEach((e, k) => (fuseSlot[e] = k));
-	const diodeSlot = mem.i32(ne).fill(-1);
-	diodes.forEach((e, k) => (diodeSlot[e] = k));
-	const relayOfEl = mem.i32(ne).fill(-1);
-	const relayOfPart = mem.i32(np).fill(-1);
-	for (let r = 0; r < nr; r++) {
-		relayOfPart[relayPart[r]] = r;
-		for (const e of [relayNo[r], relayNc[r], relayCoil[r]]) if (e >= 0) relayOfEl[e] = r;
 	}
-	const partKind = shared.partKind;
-	const seriesOfSource = mem.u8(ne);
-	for (let i = 0; i < ne; i++) if (els[i].kind === 'source' && els[i].role === 'resistor') seriesOfSource[i] = 1;
+	const shared = sharedOf(c, nodeIdx);
 	return {
-		partKind,
+		partKind: shared.partKind,
 		seriesOfSource,
-		pointNode,
-		partEls,
+		pointNode: shared.pointNode,
+		partElAt,
+		partElList,
 		fuseSlot,
 		diodeSlot,
 		relayOfEl,
@@ -421,9 +491,9 @@ function buildNet(c: Circuit, state: string | null | undefined, lamp: string | n
 		metered,
 		dormant,
 		baseParent,
-		fuses: mem.from(fuses),
+		fuses,
 		fuseRating,
-		relayPart: mem.from(relayPart),
+		relayPart,
 		relayNo,
 		relayNc,
 		relayCoil,
@@ -433,8 +503,8 @@ function buildNet(c: Circuit, state: string | null | undefined, lamp: string | n
 		relayWelded,
 		pullInMv,
 		dropOutMv,
-		diodes: mem.from(diodes),
-		sources: mem.from(sources),
+		diodes,
+		sources,
 		lampEl,
 		lampOhms,
 		transient

@@ -364,8 +364,10 @@ export function buildResult(s: Settled, fault: string | null, needAmps: boolean)
 export function partState(s: Settled, pi: number, cur: Float64Array | null): { status: string | null; amps: number } {
 	const net = s.net;
 	const cfg = s.cfg;
-	const els = net.partEls[pi];
-	const e0 = els.length > 0 ? els[0] : -1;
+	const list = net.partElList;
+	const q0 = net.partElAt[pi];
+	const q1 = net.partElAt[pi + 1];
+	const e0 = q1 > q0 ? list[q0] : -1;
 	let status: string | null = null;
 	let amps = 0;
 	switch (net.partKind[pi]) {
@@ -386,7 +388,11 @@ export function partState(s: Settled, pi: number, cur: Float64Array | null): { s
 		}
 		case PartKind.Positioned: {
 			status = positionedStatus(net, pi);
-			if (cur) for (const e of els) if (net.code[e] === Code.Ideal) amps = Math.max(amps, Math.abs(cur[e]));
+			if (cur)
+				for (let q = q0; q < q1; q++) {
+					const e = list[q];
+					if (net.code[e] === Code.Ideal) amps = Math.max(amps, Math.abs(cur[e]));
+				}
 			break;
 		}
 		case PartKind.Switch: {
@@ -412,7 +418,10 @@ export function partState(s: Settled, pi: number, cur: Float64Array | null): { s
 			amps = e0 >= 0 ? ampsOfEl(s, cur, e0) : 0;
 			break;
 		case PartKind.Bond:
-			for (const e of els) amps = Math.max(amps, net.code[e] === Code.Ideal ? (cur ? Math.abs(cur[e]) : 0) : ampsOfEl(s, cur, e));
+			for (let q = q0; q < q1; q++) {
+				const e = list[q];
+				amps = Math.max(amps, net.code[e] === Code.Ideal ? (cur ? Math.abs(cur[e]) : 0) : ampsOfEl(s, cur, e));
+			}
 			break;
 	}
 	return { status, amps: roundAmps(amps) };

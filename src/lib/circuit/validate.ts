@@ -7,6 +7,7 @@ import { readYaml, type Located } from './parse';
 import {
 	FUSE_TYPES,
 	LOAD_TYPES,
+	makeElement,
 	type Circuit,
 	type CircuitState,
 	type NetElement,
@@ -558,9 +559,7 @@ function assemble(
 		plus = nodeNames.length;
 		nodeNames.push('B+#emf');
 	}
-	const battery = makeElement('battery', null, 'source', 'source', plus, 1, 0, supply.volts, -1);
-	battery.battery = true;
-	elements.push(battery);
+	elements.push(makeElement('battery', null, 'source', 'source', plus, 1, 0, supply.volts, -1, undefined, undefined, undefined, undefined, true));
 	if (supply.ohms > 0) elements.push(makeElement('battery#ohms', null, 'source', 'resistor', plus, 0, supply.ohms, 0, -1));
 	for (let pi = 0; pi < parts.length; pi++) {
 		const p = parts[pi];
@@ -575,16 +574,12 @@ function assemble(
 			if (p.positions) {
 				for (const pos of p.positions)
 					for (const [x, y] of pos.pairs) {
-						const e = makeElement(id, id, 'part', 'position', pin(x), pin(y), 0, 0, pi);
-						e.position = pos.name;
-						elements.push(e);
+						elements.push(makeElement(id, id, 'part', 'position', pin(x), pin(y), 0, 0, pi, pos.name));
 					}
 			} else elements.push(makeElement(id, id, 'part', 'switch', pin('1'), pin('2'), 0, 0, pi));
 		} else if (LOAD_TYPES.has(p.type) || p.type === 'resistor') elements.push(makeElement(id, id, 'part', 'resistor', pin('1'), pin('2'), p.ohms!, 0, pi));
 		else if (p.type === 'diode') {
-			const e = makeElement(id, id, 'part', 'diode', pin('a'), pin('k'), p.ohms!, p.drop!, pi);
-			e.mid = nodeNames.length;
-			elements.push(e);
+			elements.push(makeElement(id, id, 'part', 'diode', pin('a'), pin('k'), p.ohms!, p.drop!, pi, undefined, undefined, undefined, nodeNames.length));
 			nodeNames.push(`${id}#int`);
 		} else if (p.type === 'supply') elements.push(makeElement(id, id, 'source', 'source', pin('+'), pin('-'), 0, p.volts!, pi));
 		else if (p.type === 'connector') {
@@ -615,17 +610,3 @@ function assemble(
 	};
 }
 
-/** One electrical element with every field present (a stable object shape). */
-function makeElement(
-	id: string,
-	pathId: string | null,
-	kind: NetElement['kind'],
-	role: NetElement['role'],
-	a: number,
-	b: number,
-	ohms: number,
-	volts: number,
-	part: number
-): NetElement {
-	return { id, pathId, kind, role, a, b, ohms, volts, part, position: undefined, stuck: undefined, dead: undefined, mid: undefined, battery: undefined };
-}
