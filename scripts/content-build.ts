@@ -7,26 +7,10 @@
  *   npm run content:build -- --check [--variants N] [--seed TEXT]
  *   npm run content:build [--variants N] [--seed TEXT]   (also writes the bank to the app's database)
  */
-import { readdirSync, readFileSync, statSync } from 'node:fs';
-import { join, relative } from 'node:path';
 import { buildBank } from '../src/lib/items/bank';
 import { checkDiagram } from '../src/lib/items/diagram-check';
+import { readContent } from '../src/lib/server/content/files';
 
-function walk(dir: string, ext: string): string[] {
-	let out: string[] = [];
-	let names: string[];
-	try {
-		names = readdirSync(dir);
-	} catch {
-		return out;
-	}
-	for (const n of names.sort()) {
-		const p = join(dir, n);
-		if (statSync(p).isDirectory()) out = out.concat(walk(p, ext));
-		else if (n.endsWith(ext)) out.push(p);
-	}
-	return out;
-}
 
 async function main(): Promise<number> {
 	const args = process.argv.slice(2);
@@ -47,11 +31,7 @@ async function main(): Promise<number> {
 		process.stderr.write('--variants needs a whole number above 0, e.g. --variants 24\n');
 		return 1;
 	}
-	const root = process.cwd();
-	const files: Record<string, string> = {};
-	for (const p of walk(join(root, 'content/items'), '.md')) files[relative(root, p)] = readFileSync(p, 'utf8');
-	const circuits: Record<string, string> = {};
-	for (const p of walk(join(root, 'content/circuits'), '.yaml')) circuits[relative(root, p)] = readFileSync(p, 'utf8');
+	const { files, circuits } = readContent();
 	const t0 = performance.now();
 	const cpu0 = process.cpuUsage();
 	const r = buildBank({ files, circuits, seed: opt('--seed'), variantsPerFamily: variants, checkDiagram });

@@ -4,45 +4,21 @@
  * items of the demo author's own (one draft, two waiting for review). Idempotent: a second run adds
  * nothing.
  */
-import { readdirSync, readFileSync, statSync } from 'node:fs';
-import path from 'node:path';
 import { and, eq, inArray, isNull } from 'drizzle-orm';
 import { getDb } from '../db/client';
 import { item, itemFamily, itemVersion } from '../db/schema';
-import { buildBank, type BuildOptions, type BuildResult } from '../../items/bank';
+import { buildBank, type BuildResult } from '../../items/bank';
+import { readContent } from '../content/files';
 import { FAMILIES } from '../../items/families';
 import { storeBank, type StoreProgress, type StoreReport } from '../content/bank-store';
 import { approveFamily, approveItem } from '../content/review';
 import { saveDraft, submitForReview } from '../content/authoring';
 import { findAccountByEmail } from '../users/accounts';
 
+export { readContent };
+
 export const DEMO_REVIEWER_EMAIL = 'reviewer@harrowcreek.example';
 export const DEMO_AUTHOR_EMAIL = 'author@harrowcreek.example';
-
-function walk(dir: string, ext: string): string[] {
-	let out: string[] = [];
-	let names: string[];
-	try {
-		names = readdirSync(dir);
-	} catch {
-		return out;
-	}
-	for (const n of names.sort()) {
-		const p = path.join(dir, n);
-		if (statSync(p).isDirectory()) out = out.concat(walk(p, ext));
-		else if (n.endsWith(ext)) out.push(p);
-	}
-	return out;
-}
-
-/** The bank's source files: markdown items and circuits by project path. */
-export function readContent(root = process.cwd()): Pick<BuildOptions, 'files' | 'circuits'> {
-	const files: Record<string, string> = {};
-	for (const p of walk(path.join(root, 'content/items'), '.md')) files[path.relative(root, p)] = readFileSync(p, 'utf8');
-	const circuits: Record<string, string> = {};
-	for (const p of walk(path.join(root, 'content/circuits'), '.yaml')) circuits[path.relative(root, p)] = readFileSync(p, 'utf8');
-	return { files, circuits };
-}
 
 export const FAMILY_TITLES: Record<string, string> = Object.fromEntries(FAMILIES.map((f) => [f.id, f.title]));
 
