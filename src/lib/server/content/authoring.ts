@@ -124,7 +124,7 @@ export async function loadMyItem(actor: Actor, itemId: string, db: Db = getDb())
 		status: row.status,
 		versionStatus: row.versionStatus,
 		source: row.source ?? '',
-		editable: SAVABLE.has(row.versionStatus),
+		editable: row.status !== 'retired' && SAVABLE.has(row.versionStatus),
 		comments: comments.filter((c): c is { comment: string; at: Date } => !!c.comment)
 	};
 }
@@ -146,7 +146,7 @@ export async function saveDraft(actor: Actor, source: string, itemId?: string, d
 	const it = p.item;
 	return db.transaction(async (tx) => {
 		const [existing] = await tx
-			.select({ id: item.id, authorId: item.authorId, latestVersionId: item.latestVersionId, publishedVersionId: item.publishedVersionId, versionStatus: itemVersion.status, version: itemVersion.version })
+			.select({ id: item.id, status: item.status, authorId: item.authorId, latestVersionId: item.latestVersionId, publishedVersionId: item.publishedVersionId, versionStatus: itemVersion.status, version: itemVersion.version })
 			.from(item)
 			.leftJoin(itemVersion, eq(itemVersion.id, item.latestVersionId))
 			.where(eq(item.id, it.id))
@@ -163,6 +163,7 @@ export async function saveDraft(actor: Actor, source: string, itemId?: string, d
 			return it.id;
 		}
 		if (!existing || existing.authorId !== actor.id) throw new AuthoringError('You can only change items you wrote.', existing ? 'forbidden' : 'not_found');
+		if (existing.status === 'retired') throw new AuthoringError('This item is retired: it cannot be changed. Start a new item instead.', 'wrong_state');
 		if (!existing.versionStatus || !SAVABLE.has(existing.versionStatus))
 			throw new AuthoringError(`This item is ${existing.versionStatus?.replace('_', ' ')}; you can change it while it is a draft, sent back with changes requested, or published.`, 'wrong_state');
 		if (existing.version === it.version) return it.id;
