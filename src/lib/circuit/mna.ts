@@ -62,6 +62,10 @@ export type Work = {
 	cacheable: boolean;
 };
 
+const NO_F64 = new Float64Array(0);
+const NO_I32 = new Int32Array(0);
+const NO_U8 = new Uint8Array(0);
+
 /** Shared scratch for the matrix: the engine is synchronous, and nothing keeps these after a solve. */
 let A = new Float64Array(0);
 let rhs = new Float64Array(0);
@@ -147,6 +151,64 @@ const slot = {
 	last: new Int32Array(0)
 };
 
+/**
+ * Views of shared buffers at one size, kept while the size repeats (a view is an allocation): the
+ * slot's node, element and matrix arrays, and those of the scratch structure.
+ */
+type Views = {
+	nn: number;
+	ne: number;
+	n: number;
+	parent: Int32Array;
+	root: Int32Array;
+	gOf: Int32Array;
+	fixedV: Float64Array;
+	srcOn: Uint8Array;
+	rowOfSrc: Int32Array;
+	baseA: Float64Array;
+	baseRhs: Float64Array;
+	first: Int32Array;
+	last: Int32Array;
+};
+
+function noViews(): Views {
+	return { nn: -1, ne: -1, n: -1, parent: NO_I32, root: NO_I32, gOf: NO_I32, fixedV: NO_F64, srcOn: NO_U8, rowOfSrc: NO_I32, baseA: NO_F64, baseRhs: NO_F64, first: NO_I32, last: NO_I32 };
+}
+
+const slotViews = noViews();
+const scratchViews = noViews();
+
+function nodeViews(v: Views, nn: number, parent: Int32Array, root: Int32Array, gOf: Int32Array, fixedV: Float64Array): Views {
+	if (v.nn !== nn || v.parent.buffer !== parent.buffer) {
+		v.nn = nn;
+		v.parent = parent.subarray(0, nn);
+		v.root = root.subarray(0, nn);
+		v.gOf = gOf.subarray(0, nn);
+		v.fixedV = fixedV.subarray(0, nn);
+	}
+	return v;
+}
+
+function elementViews(v: Views, ne: number, srcOn: Uint8Array, rowOfSrc: Int32Array): Views {
+	if (v.ne !== ne || v.srcOn.buffer !== srcOn.buffer) {
+		v.ne = ne;
+		v.srcOn = srcOn.subarray(0, ne);
+		v.rowOfSrc = rowOfSrc.subarray(0, ne);
+	}
+	return v;
+}
+
+function matrixViews(v: Views, n: number, baseA: Float64Array, baseRhs: Float64Array, first: Int32Array, last: Int32Array): Views {
+	if (v.n !== n || v.baseA.buffer !== baseA.buffer || v.first.buffer !== first.buffer) {
+		v.n = n;
+		v.baseA = baseA.subarray(0, n * n);
+		v.baseRhs = baseRhs.subarray(0, n);
+		v.first = first.subarray(0, n);
+		v.last = last.subarray(0, n);
+	}
+	return v;
+}
+
 function ensureSlot(nn: number, ne: number, n: number): void {
 	if (slot.parent.length < nn) {
 		const cap = Math.max(nn, 2 * slot.parent.length);
@@ -177,8 +239,10 @@ let oLeft = new Int32Array(0);
 let oPlaced = new Uint8Array(0);
 let oStack = new Int32Array(0);
 let oGroups = new Int32Array(0);
-const NO_F64 = new Float64Array(0);
-const NO_I32 = new Int32Array(0);
+let oElRa = new Int32Array(0);
+let oElRb = new Int32Array(0);
+let oEdgeA = new Int32Array(0);
+let oEdgeB = new Int32Array(0);
 
 function ensureOrderScratch(nn: number, ne: number): void {
 	if (oDeg.length < nn + 1) {
@@ -189,6 +253,12 @@ function ensureOrderScratch(nn: number, ne: number): void {
 		oGroups = new Int32Array(nn);
 	}
 	if (oAdj.length < 2 * ne) oAdj = new Int32Array(2 * ne);
+	if (oElRa.length < ne) {
+		oElRa = new Int32Array(ne);
+		oElRb = new Int32Array(ne);
+		oEdgeA = new Int32Array(ne);
+		oEdgeB = new Int32Array(ne);
+	}
 	if (oStack.length < nn + 2 * ne) oStack = new Int32Array(nn + 2 * ne);
 }
 
@@ -246,7 +316,13 @@ function buildStructure(net: Net, cfg: Config, mode: 'keep' | 'scratch' | 'slot'
 	if (scratch) ensureNodeScratch(nn, ne);
 	if (inSlot) ensureSlot(nn, ne, 0);
 	ensureOrderScratch(nn, ne);
-	const parent = scratch ? sParent.subarray(0, nn) : inSlot ? slot.parent.subarray(0, nn) : new Int32Array(nn);
+	const nodeV = scratch
+		? nodeViews(scratchViews, nn, sParent, sRoot, sGOf, sFixedV)
+		: inSlot
+			? nodeViews(slotViews, nn, slot.parent, slot.root, slot.gOf, slot.fixedV)
+			: null;
+	const elV = scratch ? elementViews(scratchViews, ne, sSrcOn, sRowOfSrc) : inSlot ? elementViews(slotViews, ne, slot.srcOn, slot.rowOfSrc) : null;
+	const parent = nodeV ? nodeV.parent : new Int32Array(nn);
 	parent.set(net.baseParent);
 	const nr = net.relayPart.length;
 	for (let r = 0; r < nr; r++) {
@@ -255,8 +331,8 @@ function buildStructure(net: Net, cfg: Config, mode: 'keep' | 'scratch' | 'slot'
 		if (no >= 0 && contactClosed(net, cfg, r, false)) unite(parent, ea[no], eb[no]);
 		if (nc >= 0 && contactClosed(net, cfg, r, true)) unite(parent, ea[nc], eb[nc]);
 	}
-	const root = scratch ? sRoot.subarray(0, nn) : inSlot ? slot.root.subarray(0, nn) : new Int32Array(nn);
-	const gOf = scratch ? sGOf.subarray(0, nn) : inSlot ? slot.gOf.subarray(0, nn) : new Int32Array(nn);
+	const root = nodeV ? nodeV.root : new Int32Array(nn);
+	const gOf = nodeV ? nodeV.gOf : new Int32Array(nn);
 	if (sparScratch.length < nn) {
 		sparScratch = new Int32Array(nn);
 		spotScratch = new Float64Array(nn);
@@ -271,9 +347,9 @@ function buildStructure(net: Net, cfg: Config, mode: 'keep' | 'scratch' | 'slot'
 		spar[i] = i;
 	}
 	for (let d = 0; d < net.diodes.length; d++) gOf[net.emid[net.diodes[d]]] = -2;
-	const fixedV = scratch ? sFixedV.subarray(0, nn) : inSlot ? slot.fixedV.subarray(0, nn) : new Float64Array(nn);
-	const srcOn = scratch ? sSrcOn.subarray(0, ne) : inSlot ? slot.srcOn.subarray(0, ne) : new Uint8Array(ne);
-	const rowOfSrc = scratch ? sRowOfSrc.subarray(0, ne) : inSlot ? slot.rowOfSrc.subarray(0, ne) : new Int32Array(ne);
+	const fixedV = nodeV ? nodeV.fixedV : new Float64Array(nn);
+	const srcOn = elV ? elV.srcOn : new Uint8Array(ne);
+	const rowOfSrc = elV ? elV.rowOfSrc : new Int32Array(ne);
 	if (reuse) {
 		fixedV.fill(0);
 		srcOn.fill(0);
@@ -318,29 +394,41 @@ function buildStructure(net: Net, cfg: Config, mode: 'keep' | 'scratch' | 'slot'
 	}
 	const nv = ng;
 	// adjacency of the unknown merged nodes through conducting elements (compressed rows)
+	// (each conducting element's merged end nodes are kept for the stamps below, -1 for others)
 	const deg = oDeg;
 	deg.fill(0, 0, nv + 1);
+	const elRa = oElRa;
+	const elRb = oElRb;
+	const edgeA = oEdgeA;
+	const edgeB = oEdgeB;
+	let nEdges = 0;
 	for (let i = 0; i < ne; i++) {
-		if (!conductive(code[i])) continue;
-		const ta = tmp[root[ea[i]]];
-		const tb = tmp[root[eb[i]]];
+		if (!conductive(code[i])) {
+			elRa[i] = -1;
+			continue;
+		}
+		const ra = root[ea[i]];
+		const rb = root[eb[i]];
+		elRa[i] = ra;
+		elRb[i] = rb;
+		const ta = tmp[ra];
+		const tb = tmp[rb];
 		if (ta >= 0 && tb >= 0 && ta !== tb) {
 			deg[ta + 1]++;
 			deg[tb + 1]++;
+			edgeA[nEdges] = ta;
+			edgeB[nEdges++] = tb;
 		}
 	}
 	for (let t = 0; t < nv; t++) deg[t + 1] += deg[t];
 	const adj = oAdj;
 	const fillAt = oFill;
-	fillAt.set(deg.subarray(0, nv));
-	for (let i = 0; i < ne; i++) {
-		if (!conductive(code[i])) continue;
-		const ta = tmp[root[ea[i]]];
-		const tb = tmp[root[eb[i]]];
-		if (ta >= 0 && tb >= 0 && ta !== tb) {
-			adj[fillAt[ta]++] = tb;
-			adj[fillAt[tb]++] = ta;
-		}
+	for (let t = 0; t < nv; t++) fillAt[t] = deg[t];
+	for (let q = 0; q < nEdges; q++) {
+		const ta = edgeA[q];
+		const tb = edgeB[q];
+		adj[fillAt[ta]++] = tb;
+		adj[fillAt[tb]++] = ta;
 	}
 	// number leaves first (then the least connected), so that elimination makes little fill-in
 	const left = oLeft;
@@ -396,12 +484,13 @@ function buildStructure(net: Net, cfg: Config, mode: 'keep' | 'scratch' | 'slot'
 		last = spans.last;
 	} else if (inSlot) {
 		ensureSlot(nn, ne, n);
-		baseA = slot.baseA.subarray(0, n * n);
+		const mv = matrixViews(slotViews, n, slot.baseA, slot.baseRhs, slot.first, slot.last);
+		baseA = mv.baseA;
 		baseA.fill(0);
-		baseRhs = slot.baseRhs.subarray(0, n);
+		baseRhs = mv.baseRhs;
 		baseRhs.fill(0);
-		first = slot.first.subarray(0, n);
-		last = slot.last.subarray(0, n);
+		first = mv.first;
+		last = mv.last;
 	} else {
 		baseA = new Float64Array(n * n);
 		baseRhs = new Float64Array(n);
@@ -410,18 +499,21 @@ function buildStructure(net: Net, cfg: Config, mode: 'keep' | 'scratch' | 'slot'
 	}
 	for (let k = 0; k < n; k++) first[k] = last[k] = k;
 	const st: Structure = { dead: -1, parent, root, gOf, fixedV, srcOn, rowOfSrc, nv, n, baseA, baseRhs, first, last, plans: reuse ? null : new Map() };
+	const g = net.g;
 	for (let i = 0; i < ne; i++) {
 		const c = code[i];
-		if (conductive(c)) {
-			const ia = gOf[root[ea[i]]];
-			const ib = gOf[root[eb[i]]];
+		const ra = elRa[i];
+		if (ra >= 0) {
+			const rb = elRb[i];
+			const ia = gOf[ra];
+			const ib = gOf[rb];
 			if (ia >= 0 && ib >= 0) {
 				if (ib < first[ia]) first[ia] = ib;
 				if (ib > last[ia]) last[ia] = ib;
 				if (ia < first[ib]) first[ib] = ia;
 				if (ia > last[ib]) last[ib] = ia;
 			}
-			if (c === Code.Resistor || c === Code.Coil) stampInto(st, baseA, baseRhs, n, ea[i], eb[i], net.g[i], 0);
+			if (c === Code.Resistor || c === Code.Coil) stampAt(baseA, baseRhs, n, ia, ib, fixedV[ra], fixedV[rb], g[i], 0);
 		} else if (c === Code.Source && rowOfSrc[i] >= 0) {
 			const k = rowOfSrc[i];
 			const ip = gOf[root[ea[i]]];
@@ -452,6 +544,25 @@ function buildStructure(net: Net, cfg: Config, mode: 'keep' | 'scratch' | 'slot'
 		}
 	}
 	return st;
+}
+
+/**
+ * `stampInto` with the ends already looked up: unknown indices ia, ib (negative for known volts)
+ * and the known volts va, vb of the ends' merged nodes. The same operations in the same order.
+ */
+function stampAt(M: Float64Array, b: Float64Array, n: number, ia: number, ib: number, va: number, vb: number, g: number, j: number): void {
+	if (ia >= 0) {
+		M[ia * n + ia] += g;
+		if (ib >= 0) M[ia * n + ib] -= g;
+		else b[ia] += g * vb;
+		b[ia] += j;
+	}
+	if (ib >= 0) {
+		M[ib * n + ib] += g;
+		if (ia >= 0) M[ib * n + ia] -= g;
+		else b[ib] += g * va;
+		b[ib] -= j;
+	}
 }
 
 /** Stamps conductance g (S) between nodes a and b, and a current j (A) driven from b to a inside the element (Norton source). */

@@ -251,19 +251,46 @@ function currentPlan(s: Settled): CurrentPlan {
 	return plan;
 }
 
-/** The reachability part of a current plan: 0 Ω merges with always-conducting elements joined, and the seeds. */
-function reachPlan(s: Settled): { reachBase: Int32Array; seeds: Int32Array } {
+/**
+ * The reachability part of a current plan: 0 Ω merges with always-conducting elements joined, and
+ * the seeds. With `scratch`, both arrays are shared buffers (valid until the next call; `seeds` may
+ * be longer: its first `nSeeds` entries count).
+ */
+function reachPlan(s: Settled, scratch = false): { reachBase: Int32Array; seeds: Int32Array; nSeeds: number } {
 	const { net, work: w } = s;
 	const ne = net.els.length;
-	const reachBase = w.parent.slice();
-	const seeds: number[] = [0, 1];
+	const nn = net.nNodes;
+	let reachBase: Int32Array;
+	let seeds: Int32Array;
+	if (scratch) {
+		if (reachScratch.length < nn) reachScratch = new Int32Array(Math.max(nn, 2 * reachScratch.length));
+		if (seedScratch.length < 2 * ne + 2) seedScratch = new Int32Array(Math.max(2 * ne + 2, 2 * seedScratch.length));
+		reachBase = reachScratch;
+		reachBase.set(w.parent);
+		seeds = seedScratch;
+	} else {
+		reachBase = w.parent.slice();
+		let ns = 2;
+		for (let i = 0; i < ne; i++) if (net.code[i] === Code.Source && w.gOf[net.ea[i]] !== -2) ns += 2;
+		seeds = new Int32Array(ns);
+	}
+	seeds[0] = 0;
+	seeds[1] = 1;
+	let k = 2;
 	for (let i = 0; i < ne; i++) {
 		const c = net.code[i];
 		if (c === Code.Resistor || c === Code.Coil) unite(reachBase, net.ea[i], net.eb[i]);
-		else if (c === Code.Source && w.gOf[net.ea[i]] !== -2) seeds.push(net.ea[i], net.eb[i]);
+		else if (c === Code.Source && w.gOf[net.ea[i]] !== -2) {
+			seeds[k++] = net.ea[i];
+			seeds[k++] = net.eb[i];
+		}
 	}
-	return { reachBase, seeds: new Int32Array(seeds) };
+	return { reachBase, seeds, nSeeds: k };
 }
+
+let reachScratch = new Int32Array(0);
+let seedScratch = new Int32Array(0);
+let liveScratch = new Uint8Array(0);
 
 /** Which nodes have a conducting path (meters excluded) to B+, GND or a source terminal. */
 export function reachableNodes(s: Settled): Uint8Array {
@@ -276,8 +303,9 @@ export function reachableNodes(s: Settled): Uint8Array {
 
 /**
  * The conducting sets of a settled solve (union-find `p`) and which roots are live (1): node i is
- * reachable when `live[findRoot(p, i)] === 1`, as `reachableNodes` reports it. Read-only (a kept
- * relay configuration keeps them by fuse and diode configuration).
+ * reachable when `live[findRoot(p, i)] === 1`, as `reachableNodes` reports it. Read-only: a kept
+ * relay configuration keeps them by fuse and diode configuration; otherwise they are shared buffers
+ * (possibly longer than the node count), valid until the next call.
  */
 export function reachSets(s: Settled): { p: Int32Array; live: Uint8Array } {
 	const { net, cfg } = s;
@@ -289,8 +317,19 @@ export function reachSets(s: Settled): { p: Int32Array; live: Uint8Array } {
 		const hit = kept!.reachByMask.get(mk);
 		if (hit) return hit;
 	}
-	const plan = kept ?? reachPlan(s);
-	const p = kept ? plan.reachBase.slice() : plan.reachBase;
+	let p: Int32Array;
+	let seeds: Int32Array;
+	let nSeeds: number;
+	if (kept) {
+		p = kept.reachBase.slice();
+		seeds = kept.seeds;
+		nSeeds = seeds.length;
+	} else {
+		const rp = reachPlan(s, true);
+		p = rp.reachBase;
+		seeds = rp.seeds;
+		nSeeds = rp.nSeeds;
+	}
 	for (let f = 0; f < net.fuses.length; f++) if (!cfg.fuseOpen[f]) unite(p, net.ea[net.fuses[f]], net.eb[net.fuses[f]]);
 	for (let d = 0; d < net.diodes.length; d++) {
 		const e = net.diodes[d];
@@ -298,9 +337,14 @@ export function reachSets(s: Settled): { p: Int32Array; live: Uint8Array } {
 		unite(p, net.ea[e], net.eb[e]);
 		unite(p, net.ea[e], net.emid[e]);
 	}
-	const live = new Uint8Array(nn);
-	const seeds = plan.seeds;
-	for (let q = 0; q < seeds.length; q++) live[findRoot(p, seeds[q])] = 1;
+	let live: Uint8Array;
+	if (kept) live = new Uint8Array(nn);
+	else {
+		if (liveScratch.length < nn) liveScratch = new Uint8Array(Math.max(nn, 2 * liveScratch.length));
+		live = liveScratch;
+		live.fill(0, 0, nn);
+	}
+	for (let q = 0; q < nSeeds; q++) live[findRoot(p, seeds[q])] = 1;
 	if (mk >= 0) {
 		for (let i = 0; i < nn; i++) p[i] = findRoot(p, i);
 		kept!.reachByMask.set(mk, { p, live });
