@@ -157,6 +157,7 @@ function faultElement(a: number, b: number, ohms: number): NetElement {
 
 /** Splits wire `id` at its midpoint; returns [first-half end node, second-half start node]. */
 function splitWire(x: FaultCtx, id: string, series: boolean): [number, number] {
+	ownArrays(x);
 	const i = x.elements.findIndex((e) => e.kind === 'wire' && e.id === id);
 	const e = x.elements[i];
 	const m1 = x.nodeNames.length;
@@ -174,16 +175,23 @@ function splitWire(x: FaultCtx, id: string, series: boolean): [number, number] {
 	return [m1, m2];
 }
 
+/** Copies the circuit's node names and elements before the first change in place (they are shared until then). */
+function ownArrays(x: FaultCtx): void {
+	if (x.nodeNames === x.c.nodeNames) x.nodeNames = x.nodeNames.slice();
+	if (x.elements === x.c.elements) x.elements = x.elements.slice();
+}
+
 function needWire(x: FaultCtx, id: string): void {
 	if (!findWire(x.c, id)) failWith(x.text, `fault ${x.f.kind} needs a wire; "${id}" is not a wire of this circuit`);
 }
 
 function buildFaulted(c: Circuit, f: Fault, text: string): Circuit {
 	if (c.fault) throw new FaultError(text, `circuit already has fault ${c.fault}; faults apply one at a time`);
-	// copy on write: unchanged elements are shared with the circuit given (elements are never mutated)
-	const x: FaultCtx = { c, f, text, nodeNames: c.nodeNames.slice(), elements: c.elements.slice() };
-	const deadCoils = c.deadCoils.slice();
-	const openedParts = c.openedParts.slice();
+	// copy on write: unchanged elements, and the arrays themselves until a change in place, are shared
+	// with the circuit given (circuits are never changed)
+	const x: FaultCtx = { c, f, text, nodeNames: c.nodeNames, elements: c.elements };
+	let deadCoils = c.deadCoils;
+	let openedParts = c.openedParts;
 	const dot = f.target.indexOf('.');
 	const pid = dot >= 0 ? f.target.slice(0, dot) : f.target;
 	const sub = dot >= 0 ? f.target.slice(dot + 1) : '';
@@ -196,7 +204,7 @@ function buildFaulted(c: Circuit, f: Fault, text: string): Circuit {
 			else if (p && dot < 0 && (isTwoPin(p) || p.type === 'ground')) {
 				const pi = c.parts.indexOf(p);
 				x.elements = x.elements.filter((e) => e.part !== pi || e.kind === 'fault');
-				openedParts.push(p.id);
+				openedParts = [...openedParts, p.id];
 			} else if (p && p.type === 'connector' && dot >= 0) {
 				if (!cavityOk) failWith(text, `${p.id} has no cavity "${sub}"; its cavities are 1 to ${p.cavities}`);
 				x.elements = x.elements.filter((e) => e.id !== f.target);
@@ -204,7 +212,7 @@ function buildFaulted(c: Circuit, f: Fault, text: string): Circuit {
 				const pi = c.parts.indexOf(p);
 				const role = sub === 'coil' ? 'coil' : sub === '87' ? 'no' : 'nc';
 				x.elements = x.elements.filter((e) => !(e.part === pi && e.role === role));
-				if (sub === 'coil') deadCoils.push(p.id);
+				if (sub === 'coil') deadCoils = [...deadCoils, p.id];
 			} else if (p && p.type === 'relay') failWith(text, `open on a relay names K1.coil, K1.87 or K1.87a; "${f.target}" is none of them`);
 			else if (p) failWith(text, `open does not apply to ${f.target} (a ${p.type}); it applies to wires, two-pin parts, grounds, cavities and relay coil or contacts`);
 			else failWith(text, `unknown fault target "${f.target}"; name a wire, a part, K1.coil, K1.87, K1.87a or a cavity like C1.3`);
