@@ -40,6 +40,10 @@ const load = tracePath(court.circuit, { state: 'both-open', through: 'S2' });
 const shared = sharedPath(control, load, court.circuit);
 mount(WiringDiagram, { target: document.getElementById('overlay'), props: { circuit: court.diagram, mode: 'overlay', state: 'both-open',
   overlays: [ { name: 'driver door path', elements: control.elements }, { name: 'passenger door path', elements: load.elements }, { name: 'shared', elements: shared.elements } ] } });
+import { benchCircuit } from ${abs('src/lib/diagram/bench-circuit.ts')};
+const wide = readDiagramCircuit(benchCircuit());
+mount(WiringDiagram, { target: document.getElementById('tap'), props: { circuit: wide.diagram, mode: 'select', state: 'all-on',
+  onselect: (id) => { document.getElementById('tapped').textContent = id ?? '(none)'; } } });
 const wip = readDiagramCircuit(wiper);
 mount(WiringDiagram, { target: document.getElementById('live'), props: { circuit: wip.diagram, engine: wip.circuit, mode: 'live', state: 'off-mid-sweep' } });
 `;
@@ -53,6 +57,7 @@ const HTML = `<!doctype html>
 <section><h2>Pick a part or wire</h2><div id="select"></div><p>Picked: <output id="picked">(none)</output></p></section>
 <section><h2>Current paths</h2><div id="overlay"></div></section>
 <section><h2>Bench</h2><div id="live"></div></section>
+<section><h2>A wide circuit to tap</h2><div id="tap"></div><p>Tapped: <output id="tapped">(none)</output></p></section>
 </main><script type="module" src="./entry.js"></script></body></html>`;
 
 const GALLERY_ENTRY = `
@@ -215,6 +220,55 @@ describe('WiringDiagram in Chromium', () => {
 		expect(small).toEqual([]);
 		const fits = await page.$eval('#select svg', (s) => s.getBoundingClientRect().width <= 360);
 		expect(fits).toBe(true);
+		await page.setViewportSize({ width: 1280, height: 900 });
+	});
+
+	it('on a 360 px phone, a tap on a wire’s own line or a part’s body picks that wire or part, even where hit areas overlap', async () => {
+		await page.setViewportSize({ width: 360, height: 780 });
+		await page.waitForTimeout(100);
+		/** Where to tap, on screen now: the middle of a wire's middle segment, or the centre of a part's body. */
+		const spot = (id: string) =>
+			page.$eval(
+				'#tap svg',
+				(svg, id) => {
+					const g = svg.querySelector(`[data-item="${id}"]`) as SVGGElement;
+					let x: number, y: number;
+					if (g.classList.contains('wd-wire')) {
+						const pts = (g.querySelector('polyline.sp-wire') as SVGPolylineElement).points;
+						const i = Math.max(1, Math.floor(pts.numberOfItems / 2));
+						x = (pts.getItem(i - 1).x + pts.getItem(i).x) / 2;
+						y = (pts.getItem(i - 1).y + pts.getItem(i).y) / 2;
+					} else {
+						const body = g.querySelector('g') as SVGGElement;
+						const r = body.getBBox();
+						const t = body.transform.baseVal.consolidate()?.matrix;
+						x = (t?.e ?? 0) + r.x + r.width / 2;
+						y = (t?.f ?? 0) + r.y + r.height / 2;
+					}
+					const p = new DOMPoint(x, y).matrixTransform((svg as SVGSVGElement).getScreenCTM()!);
+					// Which target's hit area is on top there (the one a plain hit test would pick).
+					const top = document.elementFromPoint(p.x, p.y)?.closest('[data-item]')?.getAttribute('data-item') ?? null;
+					return { x: p.x, y: p.y, top };
+				},
+				id
+			);
+		const ids = await page.$$eval('#tap [data-item].wd-wire, #tap [data-item].wd-part', (els) => els.map((e) => e.getAttribute('data-item')!));
+		expect(ids.length).toBeGreaterThan(10);
+		const wrong: string[] = [];
+		const covered: string[] = [];
+		for (const id of ids) {
+			if ((await page.textContent('#tapped')) === id) await page.click('#tap [data-item="' + ids.find((x) => x !== id) + '"]');
+			await page.$eval(`#tap [data-item="${id}"]`, (el) => el.scrollIntoView({ block: 'center' }));
+			const at = await spot(id);
+			if (at.top !== id) covered.push(`${id} under ${at.top}`);
+			await page.mouse.click(at.x, at.y);
+			const picked = await page.textContent('#tapped');
+			if (picked !== id) wrong.push(`${id} picked ${picked}`);
+		}
+		console.log(`phone taps: ${ids.length} targets, ${covered.length} under another target's hit area: ${covered.join(', ')}`);
+		// The wide circuit fitted to a phone has targets under their neighbours' hit areas: the case this checks.
+		expect(covered.length).toBeGreaterThan(0);
+		expect(wrong).toEqual([]);
 		await page.setViewportSize({ width: 1280, height: 900 });
 	});
 

@@ -24,3 +24,5 @@ export type { OverlaySet, RenderOptions } from './render-svg';
 export { readDiagramCircuit, readLayoutHints, toDiagramCircuit, LayoutHintError } from './from-circuit';
 export type { GalleryCircuit, GalleryState } from './gallery';
 export { checkDrawing } from './geometry';
+export { nearestTarget, distanceToBox, distanceToPolyline } from './hit';
+export type { HitCandidates } from './hit';
