@@ -294,6 +294,57 @@ function spotOf(spar: Int32Array, spot: Float64Array, x: number): number {
 	return p;
 }
 
+/**
+ * What every structure of one network starts from: each node's initial unknown mark (-2 for a
+ * dormant node or a diode's midpoint, else -3), the 0 Ω merge of the fixed ideal elements with every
+ * node pointing at its root, the conducting elements and the metered nodes (ascending).
+ */
+type NetStart = { gInit: Int32Array; baseRoot: Int32Array; cond: Int32Array; nCond: number; meteredNodes: Int32Array; nMetered: number };
+
+const startByNet = new WeakMap<Net, NetStart>();
+/** The start of the transient network built last (its arrays are shared scratch, reused by the next). */
+let transientStart: { net: Net | null; st: NetStart } = {
+	net: null,
+	st: { gInit: NO_I32, baseRoot: NO_I32, cond: NO_I32, nCond: 0, meteredNodes: NO_I32, nMetered: 0 }
+};
+
+function netStart(net: Net): NetStart {
+	if (net.transient && transientStart.net === net) return transientStart.st;
+	if (!net.transient) {
+		const hit = startByNet.get(net);
+		if (hit) return hit;
+	}
+	const nn = net.nNodes;
+	const ne = net.code.length;
+	let st: NetStart;
+	if (net.transient) {
+		st = transientStart.st;
+		if (st.gInit.length < nn) {
+			const cap = Math.max(nn, 2 * st.gInit.length);
+			st.gInit = new Int32Array(cap);
+			st.baseRoot = new Int32Array(cap);
+			st.meteredNodes = new Int32Array(cap);
+		}
+		if (st.cond.length < ne) st.cond = new Int32Array(Math.max(ne, 2 * st.cond.length));
+		transientStart.net = net;
+	} else st = { gInit: new Int32Array(nn), baseRoot: new Int32Array(nn), cond: new Int32Array(ne), nCond: 0, meteredNodes: new Int32Array(nn), nMetered: 0 };
+	const { gInit, baseRoot, cond, meteredNodes } = st;
+	baseRoot.set(net.baseParent);
+	let nm = 0;
+	for (let i = 0; i < nn; i++) {
+		gInit[i] = net.dormant[i] ? -2 : -3;
+		baseRoot[i] = findRoot(baseRoot, i);
+		if (net.metered[i]) meteredNodes[nm++] = i;
+	}
+	for (let d = 0; d < net.diodes.length; d++) gInit[net.emid[net.diodes[d]]] = -2;
+	let nc = 0;
+	for (let i = 0; i < ne; i++) if (conductive(net.code[i])) cond[nc++] = i;
+	st.nCond = nc;
+	st.nMetered = nm;
+	if (!net.transient) startByNet.set(net, st);
+	return st;
+}
+
 /** True for elements stamped as a conductance in some configuration (resistors, coils, fuses, diodes). */
 function conductive(c: number): boolean {
 	return c === Code.Resistor || c === Code.Coil || c === Code.Fuse || c === Code.Diode;
@@ -322,8 +373,10 @@ function buildStructure(net: Net, cfg: Config, mode: 'keep' | 'scratch' | 'slot'
 			? nodeViews(slotViews, nn, slot.parent, slot.root, slot.gOf, slot.fixedV)
 			: null;
 	const elV = scratch ? elementViews(scratchViews, ne, sSrcOn, sRowOfSrc) : inSlot ? elementViews(slotViews, ne, slot.srcOn, slot.rowOfSrc) : null;
+	const start = netStart(net);
 	const parent = nodeV ? nodeV.parent : new Int32Array(nn);
-	parent.set(net.baseParent);
+	// the fixed merge with every node at its root: a set's root is its smallest node either way
+	for (let i = 0; i < nn; i++) parent[i] = start.baseRoot[i];
 	const nr = net.relayPart.length;
 	for (let r = 0; r < nr; r++) {
 		const no = net.relayNo[r];
@@ -341,12 +394,12 @@ function buildStructure(net: Net, cfg: Config, mode: 'keep' | 'scratch' | 'slot'
 	const spar = sparScratch;
 	const spot = spotScratch;
 	spot.fill(0, 0, nn);
+	const gInit = start.gInit;
 	for (let i = 0; i < nn; i++) {
 		root[i] = findRoot(parent, i);
-		gOf[i] = net.dormant[i] ? -2 : -3;
+		gOf[i] = gInit[i];
 		spar[i] = i;
 	}
-	for (let d = 0; d < net.diodes.length; d++) gOf[net.emid[net.diodes[d]]] = -2;
 	const fixedV = nodeV ? nodeV.fixedV : new Float64Array(nn);
 	const srcOn = elV ? elV.srcOn : new Uint8Array(ne);
 	const rowOfSrc = elV ? elV.rowOfSrc : new Int32Array(ne);
@@ -402,11 +455,10 @@ function buildStructure(net: Net, cfg: Config, mode: 'keep' | 'scratch' | 'slot'
 	const edgeA = oEdgeA;
 	const edgeB = oEdgeB;
 	let nEdges = 0;
-	for (let i = 0; i < ne; i++) {
-		if (!conductive(code[i])) {
-			elRa[i] = -1;
-			continue;
-		}
+	const cond = start.cond;
+	const nCond = start.nCond;
+	for (let q = 0; q < nCond; q++) {
+		const i = cond[q];
 		const ra = root[ea[i]];
 		const rb = root[eb[i]];
 		elRa[i] = ra;
@@ -499,22 +551,27 @@ function buildStructure(net: Net, cfg: Config, mode: 'keep' | 'scratch' | 'slot'
 	}
 	for (let k = 0; k < n; k++) first[k] = last[k] = k;
 	const st: Structure = { dead: -1, parent, root, gOf, fixedV, srcOn, rowOfSrc, nv, n, baseA, baseRhs, first, last, plans: reuse ? null : new Map() };
+	// conducting elements, then sources: their stamps touch disjoint entries (node rows and columns,
+	// source rows and columns), so the order between the two groups changes no sum
 	const g = net.g;
-	for (let i = 0; i < ne; i++) {
+	for (let q = 0; q < nCond; q++) {
+		const i = cond[q];
 		const c = code[i];
 		const ra = elRa[i];
-		if (ra >= 0) {
-			const rb = elRb[i];
-			const ia = gOf[ra];
-			const ib = gOf[rb];
-			if (ia >= 0 && ib >= 0) {
-				if (ib < first[ia]) first[ia] = ib;
-				if (ib > last[ia]) last[ia] = ib;
-				if (ia < first[ib]) first[ib] = ia;
-				if (ia > last[ib]) last[ib] = ia;
-			}
-			if (c === Code.Resistor || c === Code.Coil) stampAt(baseA, baseRhs, n, ia, ib, fixedV[ra], fixedV[rb], g[i], 0);
-		} else if (c === Code.Source && rowOfSrc[i] >= 0) {
+		const rb = elRb[i];
+		const ia = gOf[ra];
+		const ib = gOf[rb];
+		if (ia >= 0 && ib >= 0) {
+			if (ib < first[ia]) first[ia] = ib;
+			if (ib > last[ia]) last[ia] = ib;
+			if (ia < first[ib]) first[ib] = ia;
+			if (ia > last[ib]) last[ib] = ia;
+		}
+		if (c === Code.Resistor || c === Code.Coil) stampAt(baseA, baseRhs, n, ia, ib, fixedV[ra], fixedV[rb], g[i], 0);
+	}
+	for (let s = 0; s < srcs.length; s++) {
+		const i = srcs[s];
+		if (rowOfSrc[i] >= 0) {
 			const k = rowOfSrc[i];
 			const ip = gOf[root[ea[i]]];
 			const im = gOf[root[eb[i]]];
@@ -535,9 +592,9 @@ function buildStructure(net: Net, cfg: Config, mode: 'keep' | 'scratch' | 'slot'
 	const gm = 1 / METER_OHMS;
 	const metered = oPlaced;
 	metered.fill(0, 0, nv);
-	for (let i = 0; i < nn; i++) {
-		if (!net.metered[i]) continue;
-		const k = gOf[root[i]];
+	const meteredNodes = start.meteredNodes;
+	for (let q = 0; q < start.nMetered; q++) {
+		const k = gOf[root[meteredNodes[q]]];
 		if (k >= 0 && !metered[k]) {
 			metered[k] = 1;
 			baseA[k * n + k] += gm;
