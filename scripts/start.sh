@@ -4,7 +4,8 @@
 # Ctrl-C (or SIGTERM) stops the app and the database server this script started.
 #
 # Settings (environment), all optional: APP_PORT (3000), DB_PORT (3307), DB_DATA_DIR (.data/mariadb),
-# DB_NAME, DB_USER, DB_PASSWORD, SKIP_BUILD=1 (reuse build/ when it exists). Behind an https proxy set
+# DB_NAME, DB_USER, DB_PASSWORD, SKIP_BUILD=1 (reuse build/ when it exists), FORCE_BUILD=1 (rebuild even
+# when no source is newer than build/). Behind an https proxy set
 # PROTOCOL_HEADER=x-forwarded-proto and HOST_HEADER=x-forwarded-host (adapter-node), and ADDRESS_HEADER
 # for the client address used by sign-in throttling; otherwise ORIGIN is set to the local address.
 set -euo pipefail
@@ -53,11 +54,24 @@ bash scripts/mariadb.sh start
 
 sign_ins=$(npx --no-install tsx scripts/prepare-db.ts)
 
+# The build is reused when nothing it is made from is newer than it (like make): a source file, a
+# config file, the lock file, or a folder whose entries changed (a file added or removed).
+build_is_fresh() {
+	[ -f build/index.js ] || return 1
+	local newer
+	newer=$(find src static svelte.config.js vite.config.ts tailwind.config.ts tsconfig.json package.json package-lock.json \
+		-newer build/index.js -print -quit 2>/dev/null)
+	[ -z "$newer" ]
+}
+
 if [ "${SKIP_BUILD:-0}" = 1 ] && [ -f build/index.js ]; then
 	say "using the existing build (SKIP_BUILD=1)"
+elif [ "${FORCE_BUILD:-0}" != 1 ] && build_is_fresh; then
+	say "using the existing build: no source is newer than build/ (FORCE_BUILD=1 rebuilds)"
 else
 	say "building the app"
 	npx --no-install vite build --logLevel warn
+	touch build/index.js
 fi
 
 if [ -z "${PROTOCOL_HEADER:-}" ] && [ -z "${ORIGIN:-}" ]; then
