@@ -138,7 +138,8 @@ describe('the learner’s day at 360 px', () => {
 		const summary = await page.getByTestId('progress-summary').textContent();
 		expect(summary).toMatch(/Streak\s*1 day/);
 		expect(summary).toMatch(/Days to the exam\s*(39|40)/);
-		await expect.poll(() => page.locator('canvas').count()).toBe(3);
+		// Ability, reviews due, accuracy and minutes: one chart each.
+		await expect.poll(() => page.locator('canvas').count()).toBe(4);
 		// Chart.js sizes each canvas when it has drawn it.
 		await expect.poll(() => page.evaluate(() => [...document.querySelectorAll('canvas')].every((c) => c.style.display === 'block'))).toBe(true);
 		await expectNoSideScroll(page);
