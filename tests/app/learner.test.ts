@@ -181,6 +181,10 @@ describe('the bench at 360 px', () => {
 		await signUp(page, 'bench');
 		await openPage(page, `${APP_URL}/bench`);
 		await shoot(page, 'bench-list', true);
+		// The bank's circuits come one per circuit source: a family's many variants are one entry, not a wall of equal titles.
+		const titles = await page.getByTestId('bench-bank-list').getByTestId('bench-title').allTextContents();
+		expect(titles.length).toBeGreaterThan(5);
+		expect(new Set(titles).size).toBe(titles.length);
 		await openPage(page, `${APP_URL}/bench/horn-relay`);
 		await page.locator('svg').first().waitFor();
 		await expectNoSideScroll(page);

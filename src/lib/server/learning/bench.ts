@@ -7,7 +7,7 @@
 import { randomBytes } from 'node:crypto';
 import { readFile } from 'node:fs/promises';
 import path from 'node:path';
-import { and, eq } from 'drizzle-orm';
+import { and, eq, inArray, notLike, sql } from 'drizzle-orm';
 import { diagnose, formatFault, parseFault, solveCircuit, standardFaults, type Circuit, type Observation } from '$lib/circuit';
 import { readDiagramCircuit } from '$lib/diagram';
 import type { Db } from '../db/client';
@@ -45,32 +45,46 @@ export async function benchCircuit(db: Db, ref: string): Promise<BenchCircuit | 
 	}
 }
 
-/** The demo circuits and a sample of circuits from published items, for the bench's list. */
-export async function benchList(db: Db): Promise<{ ref: string; title: string; source: 'demo' | 'item' }[]> {
+export type BenchListEntry = { ref: string; title: string; source: 'demo' | 'item'; versions: number };
+
+/**
+ * The demo circuits, then one circuit per circuit source of the published items (a generator family's
+ * variants share a title, so the list shows each family once, with how many versions of it the bank has,
+ * and opens its first published version).
+ */
+export async function benchList(db: Db): Promise<BenchListEntry[]> {
 	const { readdir } = await import('node:fs/promises');
-	const out: { ref: string; title: string; source: 'demo' | 'item' }[] = [];
+	const out: BenchListEntry[] = [];
 	for (const f of (await readdir(CIRCUITS_DIR).catch(() => [] as string[])).filter((n) => n.endsWith('.yaml')).sort()) {
 		const c = await benchCircuit(db, f.replace(/\.yaml$/, ''));
-		if (c) out.push({ ref: c.ref, title: c.title, source: 'demo' });
+		if (c) out.push({ ref: c.ref, title: c.title, source: 'demo', versions: 1 });
 	}
-	const rows = await db
-		.select({ id: itemVersion.id, ref: itemVersion.circuitRef, text: itemVersion.circuitText })
+	const groups = await db
+		.select({ ref: itemVersion.circuitRef, first: sql<number>`min(${itemVersion.id})`, versions: sql<number>`count(distinct ${itemVersion.circuitText})` })
 		.from(item)
 		.innerJoin(itemVersion, eq(itemVersion.id, item.publishedVersionId))
-		.where(eq(item.status, 'published'))
-		.limit(400);
-	const seen = new Set<string>();
-	for (const r of rows) {
-		if (seen.has(r.text) || r.ref.startsWith('content/circuits/')) continue;
-		seen.add(r.text);
+		.where(and(eq(item.status, 'published'), notLike(itemVersion.circuitRef, 'content/circuits/%')))
+		.groupBy(itemVersion.circuitRef)
+		.orderBy(itemVersion.circuitRef)
+		.limit(60);
+	if (!groups.length) return out;
+	const texts = await db
+		.select({ id: itemVersion.id, text: itemVersion.circuitText })
+		.from(itemVersion)
+		.where(inArray(itemVersion.id, groups.map((g) => Number(g.first))));
+	const textOf = new Map(texts.map((t) => [t.id, t.text]));
+	const items: BenchListEntry[] = [];
+	for (const g of groups) {
+		const text = textOf.get(Number(g.first));
+		if (!text) continue;
 		try {
-			out.push({ ref: `i.${r.id}`, title: readDiagramCircuit(r.text).diagram.title, source: 'item' });
+			items.push({ ref: `i.${Number(g.first)}`, title: readDiagramCircuit(text).diagram.title, source: 'item', versions: Number(g.versions) });
 		} catch {
 			// A circuit the diagram cannot draw is left off the bench list.
 		}
-		if (out.filter((o) => o.source === 'item').length >= 24) break;
 	}
-	return out;
+	items.sort((a, b) => a.title.localeCompare(b.title, 'en') || a.ref.localeCompare(b.ref));
+	return [...out, ...items];
 }
 
 const statesOf = (c: Circuit) => c.states.map((s) => s.name);
