@@ -1,36 +1,17 @@
 // The authoring and review workflow in Chromium: the demo author writes an item, previews the engine's
 // key, saves and submits it; the demo reviewer finds it in the queue and approves it; it is published.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { mkdirSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
 import { randomBytes } from 'node:crypto';
-import type { BrowserContext, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { APP_URL, demoAccount, signIn as signInHttp } from '../helpers/app';
-import { launchBrowser, openPage } from '../helpers/browser';
+import { browserPerFile, openPage, shootBoth } from '../helpers/browser';
 import { DEMO_PASSWORD } from '../../src/lib/server/seed/demo';
 
-const SHOTS = 'screenshots';
-const DESKTOP = { width: 1280, height: 800 };
-const PHONE = { width: 360, height: 780 };
+const browser = browserPerFile();
 
-let context: BrowserContext;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-	mkdirSync(SHOTS, { recursive: true });
-	({ context, close } = await launchBrowser());
-});
-afterAll(async () => close?.());
-
-async function shoot(page: Page, name: string) {
-	for (const [label, size] of [['desktop', DESKTOP], ['phone', PHONE]] as const) {
-		await page.setViewportSize(size);
-		await page.screenshot({ path: `${SHOTS}/${name}-${label}.png`, fullPage: true });
-	}
-	await page.setViewportSize(DESKTOP);
-}
 
 async function signIn(page: Page, email: string) {
-	await context.clearCookies();
+	await browser.context.clearCookies();
 	await openPage(page, `${APP_URL}/signin`);
 	await page.getByLabel('E-mail').fill(email);
 	await page.getByLabel('Password').fill(DEMO_PASSWORD);
@@ -58,7 +39,7 @@ With the temperature switch open no current flows through the coil, so B sits at
 
 describe('writing and reviewing an item (Chromium)', () => {
 	it('the author writes, previews, saves and submits; the reviewer approves; the item is published', async () => {
-		const page = await context.newPage();
+		const page = await browser.context.newPage();
 		await signIn(page, 'author@harrowcreek.example');
 		await openPage(page, `${APP_URL}/author`);
 		await page.getByRole('link', { name: 'New item' }).click();
@@ -74,7 +55,7 @@ describe('writing and reviewing an item (Chromium)', () => {
 		await page.keyboard.insertText(source);
 		await expect.poll(() => key.textContent(), { timeout: 15_000 }).toContain('12.6 V');
 		await expect.poll(() => page.locator('.item-preview').textContent()).toContain(id);
-		await shoot(page, 'item-editor');
+		await shootBoth(page, 'item-editor');
 
 		await page.getByRole('button', { name: 'Save draft' }).click();
 		await page.waitForURL(`${APP_URL}/author/items/${id}?saved=1`);
@@ -87,7 +68,7 @@ describe('writing and reviewing an item (Chromium)', () => {
 		await openPage(page, `${APP_URL}/review`);
 		const queued = page.locator(`[data-item="${id}"]`);
 		await expect.poll(() => queued.count()).toBe(1);
-		await shoot(page, 'review-queue');
+		await shootBoth(page, 'review-queue');
 		await queued.getByRole('link', { name: id }).click();
 		await page.waitForURL(`${APP_URL}/review/items/${id}`);
 		await expect.poll(() => page.getByTestId('key-check').textContent()).toContain('it matches');
@@ -104,7 +85,7 @@ describe('writing and reviewing an item (Chromium)', () => {
 	});
 
 	it('uploads a .md file as a draft', async () => {
-		const page = await context.newPage();
+		const page = await browser.context.newPage();
 		await signIn(page, 'author@harrowcreek.example');
 		await openPage(page, `${APP_URL}/author/items/new`);
 		const uploaded = `upload-${randomBytes(3).toString('hex')}`;

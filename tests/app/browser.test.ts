@@ -1,31 +1,12 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { mkdirSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
 import { randomBytes } from 'node:crypto';
-import type { BrowserContext, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { APP_URL } from '../helpers/app';
-import { launchBrowser, openPage } from '../helpers/browser';
+import { browserPerFile, openPage, DESKTOP, PHONE, SHOTS, shootBoth, launchBrowser } from '../helpers/browser';
 import { DEMO_PASSWORD } from '../../src/lib/server/seed/demo';
 
-const SHOTS = 'screenshots';
-const DESKTOP = { width: 1280, height: 800 };
-const PHONE = { width: 360, height: 780 };
+const browser = browserPerFile();
 
-let context: BrowserContext;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-	mkdirSync(SHOTS, { recursive: true });
-	({ context, close } = await launchBrowser());
-});
-afterAll(async () => close?.());
-
-async function shoot(page: Page, name: string) {
-	for (const [label, size] of [['desktop', DESKTOP], ['phone', PHONE]] as const) {
-		await page.setViewportSize(size);
-		await page.screenshot({ path: `${SHOTS}/${name}-${label}.png`, fullPage: true });
-	}
-	await page.setViewportSize(DESKTOP);
-}
 
 async function signInWithForm(page: Page, email: string, password: string) {
 	await openPage(page, `${APP_URL}/signin`);
@@ -40,10 +21,10 @@ const newPassword = 'voltage drop under load';
 
 describe('in the browser (Chromium)', () => {
 	it('signs up, lands on the learner home, is refused the site-admin page, signs out', async () => {
-		const page = await context.newPage();
+		const page = await browser.context.newPage();
 		await openPage(page, APP_URL);
 		await expect.poll(() => page.getByRole('link', { name: 'Create an account' }).first().isVisible()).toBe(true);
-		await shoot(page, 'landing');
+		await shootBoth(page, 'landing');
 
 		await openPage(page, `${APP_URL}/signup`);
 		await page.getByLabel('E-mail').fill('petra@');
@@ -54,7 +35,7 @@ describe('in the browser (Chromium)', () => {
 		expect(await page.locator('#field-email-error').textContent()).toContain('name@example.org');
 		expect(await page.locator('#field-password-error').textContent()).toContain('at least 12');
 		expect(await page.getByLabel('E-mail').inputValue()).toBe('petra@');
-		await shoot(page, 'signup-errors');
+		await shootBoth(page, 'signup-errors');
 
 		await page.getByLabel('Your name').fill('Petra Lindqvist-Moore');
 		await page.getByLabel('E-mail').fill(newEmail);
@@ -66,7 +47,7 @@ describe('in the browser (Chromium)', () => {
 		await expect.poll(() => page.getByRole('heading', { level: 1 }).textContent()).toBe('Welcome, Petra');
 		expect(await page.getByText('America/Denver').count()).toBeGreaterThan(0);
 		expect(await page.getByRole('link', { name: 'People and roles' }).count()).toBe(0);
-		await shoot(page, 'home');
+		await shootBoth(page, 'home');
 
 		// On a phone the navigation folds into a menu.
 		await page.setViewportSize(PHONE);
@@ -82,12 +63,12 @@ describe('in the browser (Chromium)', () => {
 		await page.getByRole('button', { name: 'Save' }).click();
 		await expect.poll(() => page.getByRole('status').textContent()).toContain('Your profile is saved.');
 		expect(await page.getByLabel('Time zone').inputValue()).toBe('Europe/Berlin');
-		await shoot(page, 'profile');
+		await shootBoth(page, 'profile');
 
 		const refused = await openPage(page, `${APP_URL}/admin/users`);
 		expect(refused?.status()).toBe(403);
 		expect(await page.getByRole('heading', { level: 1 }).textContent()).toBe('Not for your account');
-		await shoot(page, 'refused');
+		await shootBoth(page, 'refused');
 
 		await openPage(page, `${APP_URL}/home`);
 		await page.getByRole('navigation', { name: 'Main' }).getByRole('button', { name: 'Sign out' }).first().click();
@@ -95,12 +76,12 @@ describe('in the browser (Chromium)', () => {
 		const afterSignOut = await openPage(page, `${APP_URL}/home`);
 		expect(new URL(page.url()).pathname).toBe('/signin');
 		expect(afterSignOut?.status()).toBe(200);
-		await shoot(page, 'signin');
+		await shootBoth(page, 'signin');
 		await page.close();
 	});
 
 	it('shows a wrong password message on the sign-in form and keeps the e-mail', async () => {
-		const page = await context.newPage();
+		const page = await browser.context.newPage();
 		await openPage(page, `${APP_URL}/signin`);
 		await page.getByLabel('E-mail').fill(newEmail);
 		await page.getByLabel('Password').fill('not my password at all');
@@ -112,7 +93,7 @@ describe('in the browser (Chromium)', () => {
 	});
 
 	it('lets a site admin grant the author role', async () => {
-		const page = await context.newPage();
+		const page = await browser.context.newPage();
 		await signInWithForm(page, 'siteadmin@harrowcreek.example', DEMO_PASSWORD);
 		await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'People and roles' }).first().click();
 		await page.waitForURL(`${APP_URL}/admin/users`);
@@ -124,7 +105,7 @@ describe('in the browser (Chromium)', () => {
 		await row.getByRole('combobox').selectOption('author');
 		await row.getByRole('button', { name: 'Grant' }).click();
 		await expect.poll(() => row.getByRole('list', { name: /Roles of/ }).textContent()).toContain('Author');
-		await shoot(page, 'people-and-roles');
+		await shootBoth(page, 'people-and-roles');
 
 		// The new author sees it too, after signing in.
 		const second = await launchBrowser();

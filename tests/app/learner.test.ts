@@ -1,25 +1,13 @@
 // The learner's day in Chromium at phone width (360 px): placement and a daily set with feedback and a
 // highlighted diagram, the answer history and the progress page; a short mock exam; a bench fault.
 // Each flow signs up a fresh learner, so runs never depend on each other.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { mkdirSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
 import { randomBytes } from 'node:crypto';
-import type { BrowserContext, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { APP_URL } from '../helpers/app';
-import { launchBrowser, openPage } from '../helpers/browser';
+import { browserPerFile, openPage, DESKTOP, PHONE, SHOTS } from '../helpers/browser';
 
-const SHOTS = 'screenshots';
-const PHONE = { width: 360, height: 780 };
-const DESKTOP = { width: 1280, height: 800 };
-
-let context: BrowserContext;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-	mkdirSync(SHOTS, { recursive: true });
-	({ context, close } = await launchBrowser());
-});
-afterAll(async () => close?.());
+const browser = browserPerFile();
 
 async function shoot(page: Page, name: string, desktop = false) {
 	await page.screenshot({ path: `${SHOTS}/learner-${name}-phone.png`, fullPage: true });
@@ -77,7 +65,7 @@ async function answerShownItem(page: Page) {
 
 describe('the learner’s day at 360 px', () => {
 	it('places a new learner, runs a daily set with feedback, and shows the history and progress', async () => {
-		const page = await context.newPage();
+		const page = await browser.context.newPage();
 		await signUp(page, 'placement');
 		await expect.poll(() => page.getByTestId('today').textContent()).toContain('placement set of 12');
 		await shoot(page, 'home', true);
@@ -147,7 +135,7 @@ describe('the learner’s day at 360 px', () => {
 	}, 240_000);
 
 	it('runs a short mock exam with no feedback until the report', async () => {
-		const page = await context.newPage();
+		const page = await browser.context.newPage();
 		await signUp(page, 'exam');
 		await openPage(page, `${APP_URL}/exam`);
 		await page.getByLabel('Questions').fill('5');
@@ -177,7 +165,7 @@ describe('the learner’s day at 360 px', () => {
 
 describe('the bench at 360 px', () => {
 	it('hides a fault, takes readings from the server and names the fault', async () => {
-		const page = await context.newPage();
+		const page = await browser.context.newPage();
 		await signUp(page, 'bench');
 		await openPage(page, `${APP_URL}/bench`);
 		await shoot(page, 'bench-list', true);

@@ -2,22 +2,12 @@
 // (accuracy and minutes are two charts, not one with two y-axes), every axis titled with what it shows and
 // its unit (read from each chart's accessible name), no sideways scrolling at 360 px, screenshots at
 // 1280 and 360 px.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { mkdirSync } from 'node:fs';
-import type { BrowserContext } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { APP_URL, demoAccount } from '../helpers/app';
-import { launchBrowser, openPage } from '../helpers/browser';
+import { browserPerFile, openPage, SHOTS } from '../helpers/browser';
 import { DEMO_PASSWORD } from '../../src/lib/server/seed/demo';
 
-const SHOTS = 'screenshots';
-let context: BrowserContext;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-	mkdirSync(SHOTS, { recursive: true });
-	({ context, close } = await launchBrowser());
-});
-afterAll(async () => close?.());
+const browser = browserPerFile();
 
 // What each chart's axes must say: a quantity and its unit (common practice: a chart axis is labelled with
 // the quantity and the unit it is measured in).
@@ -30,7 +20,7 @@ const EXPECTED: Record<string, string[]> = {
 
 describe('the progress page', () => {
 	it('titles every axis with its unit and reads at 1280 and 360 px', async () => {
-		const page = await context.newPage();
+		const page = await browser.context.newPage();
 		await page.setViewportSize({ width: 1280, height: 800 });
 		await openPage(page, `${APP_URL}/signin`);
 		await page.getByLabel('E-mail').fill(demoAccount('learner').email);
