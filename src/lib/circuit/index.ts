@@ -5,6 +5,7 @@
 export { CircuitFileError, DeadShortError, FaultError, ObservationError, SolveOptionError, formatProblem } from './errors';
 export type { Problem } from './errors';
 export type { Circuit, Part, PartType, Wire, CircuitState } from './model';
+export { PART_TYPES } from './model';
 export { parseCircuit, checkCircuitText } from './circuit-file';
 export { parseFault, formatFault, standardFaults, applyFault } from './faults';
 export type { Fault, FaultKind } from './faults';

@@ -3,24 +3,27 @@
  * electrical elements they stand for (built once at parse time, changed only by faults).
  */
 
-/** Every part type of the circuit format. */
-export type PartType =
-	| 'fuse'
-	| 'fusible-link'
-	| 'breaker'
-	| 'relay'
-	| 'switch'
-	| 'lamp'
-	| 'motor'
-	| 'horn'
-	| 'heater'
-	| 'solenoid'
-	| 'resistor'
-	| 'diode'
-	| 'supply'
-	| 'connector'
-	| 'splice'
-	| 'ground';
+/** Every part type of the circuit format, in the spec's order. */
+export const PART_TYPES = [
+	'fuse',
+	'fusible-link',
+	'breaker',
+	'relay',
+	'switch',
+	'lamp',
+	'motor',
+	'horn',
+	'heater',
+	'solenoid',
+	'resistor',
+	'diode',
+	'supply',
+	'connector',
+	'splice',
+	'ground'
+] as const;
+
+export type PartType = (typeof PART_TYPES)[number];
 
 /** Part types that are loads (status on/weak/off). */
 export const LOAD_TYPES: ReadonlySet<PartType> = new Set(['lamp', 'motor', 'horn', 'heater', 'solenoid']);

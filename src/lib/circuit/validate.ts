@@ -8,6 +8,7 @@ import {
 	FUSE_TYPES,
 	LOAD_TYPES,
 	makeElement,
+	PART_TYPES,
 	type Circuit,
 	type CircuitState,
 	type NetElement,
@@ -25,24 +26,6 @@ import {
 	RELAY_DEFAULTS
 } from './tables';
 
-const PART_TYPES: readonly PartType[] = [
-	'fuse',
-	'fusible-link',
-	'breaker',
-	'relay',
-	'switch',
-	'lamp',
-	'motor',
-	'horn',
-	'heater',
-	'solenoid',
-	'resistor',
-	'diode',
-	'supply',
-	'connector',
-	'splice',
-	'ground'
-];
 
 const ALLOWED_KEYS: Record<PartType, readonly string[]> = {
 	fuse: ['type', 'amps'],

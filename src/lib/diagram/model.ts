@@ -4,26 +4,10 @@
  * depend on the engine's internal field names.
  */
 
-export const PART_TYPES = [
-	'fuse',
-	'fusible-link',
-	'breaker',
-	'relay',
-	'switch',
-	'lamp',
-	'motor',
-	'horn',
-	'heater',
-	'solenoid',
-	'resistor',
-	'diode',
-	'supply',
-	'connector',
-	'splice',
-	'ground'
-] as const;
-
-export type PartType = (typeof PART_TYPES)[number];
+// The part types are the circuit format's (an external interface): one list, kept by the engine.
+export { PART_TYPES } from '../circuit/model';
+export type { PartType } from '../circuit/model';
+import type { PartType } from '../circuit/model';
 
 /** A part's placement pinned by the file: 0-based lane (column, left to right) and row (top to bottom). */
 export type PinnedCell = { column: number; row: number };
