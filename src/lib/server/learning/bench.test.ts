@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { readDiagramCircuit } from '$lib/diagram';
 import { solveCircuit } from '$lib/circuit';
-import { complaintOf, engineTests, noticeableFaults, sameSymptoms } from './bench';
+import { benchCautions, complaintOf, engineTests, noticeableFaults, sameSymptoms } from './bench';
 
 const { circuit } = readDiagramCircuit(readFileSync('content/circuits/horn-relay.yaml', 'utf8'));
 
@@ -32,5 +32,15 @@ describe('the bench', () => {
 			expect(n).toBeLessThan(12);
 			expect(sameSymptoms(circuit, f, f)).toBe(true);
 		}
+	});
+
+	// reference-values.md, "Safety cautions": batteries give off hydrogen (CCOHS); airbag circuits are never
+	// probed with a test lamp or an ordinary meter; the maker's service information comes first.
+	it('shows the safety cautions of what a workshop circuit is: battery and starting, airbag; none for a horn', () => {
+		const starter = readDiagramCircuit(readFileSync('content/circuits/starter-solenoid.yaml', 'utf8'));
+		const ids = benchCautions(starter.circuit, starter.diagram.title, 'starter-solenoid').map((c) => c.id);
+		expect(ids).toEqual(expect.arrayContaining(['hydrogen', 'ground-first', 'service-info']));
+		expect(benchCautions(circuit, 'Horn relay with a feed-side horn button', 'horn-relay')).toEqual([]);
+		expect(benchCautions(circuit, 'Airbag squib loop monitor current', 'i.12').map((c) => c.id)).toContain('airbag');
 	});
 });

@@ -10,6 +10,7 @@ import path from 'node:path';
 import { and, eq, inArray, notLike, sql } from 'drizzle-orm';
 import { diagnose, formatFault, parseFault, solveCircuit, standardFaults, type Circuit, type Observation } from '$lib/circuit';
 import { readDiagramCircuit } from '$lib/diagram';
+import { cautionsFor } from '$lib/items/blueprint';
 import type { Db } from '../db/client';
 import { benchAttempt, benchChallenge, item, itemVersion } from '../db/schema';
 import { CIRCUITS_DIR } from '../content/circuits';
@@ -20,26 +21,45 @@ const LOADS = new Set(['lamp', 'motor', 'horn', 'heater', 'solenoid']);
 const DEMO_RE = /^[a-z0-9][a-z0-9-]{0,80}$/;
 const ITEM_RE = /^i\.(\d{1,12})$/;
 
-export type BenchCircuit = { ref: string; title: string; text: string; engine: Circuit };
+export type BenchCaution = { id: string; text: string };
+export type BenchCircuit = { ref: string; title: string; text: string; engine: Circuit; cautions: BenchCaution[] };
+
+/**
+ * Safety cautions for taking readings on a circuit: a bank circuit's item carries its own; a workshop file
+ * gets those of what it shows (a battery, starter or charging circuit; an airbag squib loop; hybrid high
+ * voltage), as the bank gives an item that asks for a test (blueprint.ts cautionsFor).
+ */
+export function benchCautions(c: Circuit, title: string, ref: string): BenchCaution[] {
+	const words = `${ref} ${title} ${c.id}`.toLowerCase();
+	const tags: string[] = [];
+	if (/battery|starter|starting|charging|generator|alternator/.test(words)) tags.push('battery');
+	if (/airbag|squib/.test(words)) tags.push('airbag');
+	if (/hybrid|high.voltage/.test(words)) tags.push('high-voltage');
+	return cautionsFor('', 'next-test', tags).map((x) => ({ id: x.id, text: x.text }));
+}
 
 /** Reads a bench circuit: a demo file stem (`horn-relay`) or a published item's circuit (`i.VERSION_ID`). */
 export async function benchCircuit(db: Db, ref: string): Promise<BenchCircuit | null> {
 	let text: string | null = null;
+	let stored: BenchCaution[] | null = null;
 	const m = ITEM_RE.exec(ref);
 	if (m) {
 		const [r] = await db
-			.select({ text: itemVersion.circuitText })
+			.select({ text: itemVersion.circuitText, cautions: itemVersion.cautions })
 			.from(itemVersion)
 			.innerJoin(item, eq(item.publishedVersionId, itemVersion.id))
 			.where(and(eq(itemVersion.id, Number(m[1])), eq(item.status, 'published')));
 		text = r?.text ?? null;
+		stored = ((r?.cautions as BenchCaution[] | null | undefined) ?? []).map((x) => ({ id: x.id, text: x.text }));
 	} else if (DEMO_RE.test(ref)) {
 		text = await readFile(path.join(CIRCUITS_DIR, `${ref}.yaml`), 'utf8').catch(() => null);
 	}
 	if (!text) return null;
 	try {
 		const { circuit, diagram } = readDiagramCircuit(text);
-		return { ref, title: diagram.title, text, engine: circuit };
+		// An item's own cautions when it has any; otherwise those of what the circuit shows.
+		const cautions = stored?.length ? stored : benchCautions(circuit, diagram.title, ref);
+		return { ref, title: diagram.title, text, engine: circuit, cautions };
 	} catch {
 		return null;
 	}
@@ -146,6 +166,7 @@ export type ChallengeView = {
 	id: string;
 	circuitRef: string;
 	title: string;
+	cautions: BenchCaution[];
 	circuitText: string;
 	complaint: Observation[];
 	faults: string[];
@@ -170,6 +191,7 @@ export async function challengeView(db: Db, id: string, userId: string | null = 
 		circuitRef: ch.circuitRef,
 		title: c.title,
 		circuitText: c.text,
+		cautions: c.cautions,
 		complaint: complaintOf(c.engine, ch.fault),
 		faults: noticeableFaults(c.engine),
 		states: statesOf(c.engine),

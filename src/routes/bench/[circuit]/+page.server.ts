@@ -10,5 +10,5 @@ export const load: PageServerLoad = async (event) => {
 	// An unknown circuit: back to the list, which shows what there is.
 	if (!c) redirect(303, '/bench');
 	const canChoose = user.roles.some((r) => r === 'author' || r === 'instructor');
-	return { ref: c.ref, title: c.title, circuitText: c.text, canChoose, faults: canChoose ? noticeableFaults(c.engine) : [], hasStates: c.engine.states.length > 0 };
+	return { ref: c.ref, title: c.title, circuitText: c.text, cautions: c.cautions, canChoose, faults: canChoose ? noticeableFaults(c.engine) : [], hasStates: c.engine.states.length > 0 };
 };
