@@ -4,6 +4,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { and, eq } from 'drizzle-orm';
 import type { RequestEvent } from '@sveltejs/kit';
 import { readFileSync } from 'node:fs';
+import { randomUUID } from 'node:crypto';
 import { closeDb, getDb } from '../db/client';
 import { benchAttempt, benchChallenge } from '../db/schema';
 import { solveCircuit } from '$lib/circuit';
@@ -104,5 +105,22 @@ describe('bench challenges', () => {
 		const bad = await postGuess(honest, { challengeId: id, fault: 'open:H1', readings: -4 });
 		expect(bad.status).toBe(400);
 		expect(bad.body.error.fields).toHaveProperty('readings');
+	});
+
+	it('count a retried reading once: the same idempotency key is one reading, a new key another', async () => {
+		const learner = await person('learner');
+		const id = await createChallenge(getDb(), learner, 'horn-relay', null);
+		const view = (await challengeView(getDb(), id))!;
+		const state = view.states[0];
+		const key = randomUUID();
+		const first = await challengeReading(getDb(), learner.id, { challengeId: id, state, red: view.points[0], black: 'GND', idempotencyKey: key });
+		// The reply was lost and the client sent the same request again.
+		const retry = await challengeReading(getDb(), learner.id, { challengeId: id, state, red: view.points[0], black: 'GND', idempotencyKey: key });
+		expect(first.readingsTaken).toBe(1);
+		expect(retry).toEqual(first);
+		const next = await challengeReading(getDb(), learner.id, { challengeId: id, state, red: view.points[0], black: 'GND', idempotencyKey: randomUUID() });
+		expect(next.readingsTaken).toBe(2);
+		const [row] = await getDb().select().from(benchAttempt).where(and(eq(benchAttempt.challengeId, id), eq(benchAttempt.userId, learner.id)));
+		expect(row.readings).toHaveLength(2);
 	});
 });

@@ -176,7 +176,8 @@ export type ChallengeView = {
 	attempt: { readings: BenchReading[]; verdict: BenchVerdict | null };
 };
 
-type ReadingKey = { state: string; red: string; black: string };
+/** One recorded reading: where the leads were, in which state; `key` is the client's idempotency key when it sent one. */
+type ReadingKey = { state: string; red: string; black: string; key?: string };
 type AttemptRow = typeof benchAttempt.$inferSelect;
 
 /** What the learner sees of a challenge: the circuit, the complaint and the list of faults to choose from (never which one). */
@@ -242,14 +243,20 @@ export const MAX_READINGS = 200;
  * reading taken); readings after the fault has been named are shown but no longer recorded.
  * `readingsTaken` is the attempt's count.
  */
-export async function challengeReading(db: Db, userId: string, req: { challengeId: string; state: string; red: string; black: string }): Promise<BenchReading & { readingsTaken: number }> {
+export async function challengeReading(
+	db: Db,
+	userId: string,
+	req: { challengeId: string; state: string; red: string; black: string; idempotencyKey?: string }
+): Promise<BenchReading & { readingsTaken: number }> {
 	const { ch, c } = await loadChallenge(db, req.challengeId);
-	const key: ReadingKey = { state: req.state, red: req.red, black: req.black };
+	const key: ReadingKey = { state: req.state, red: req.red, black: req.black, ...(req.idempotencyKey ? { key: req.idempotencyKey } : {}) };
 	const reading = readMeter(c.engine, ch.fault, key);
 	const taken = await db.transaction(async (tx) => {
 		const a = await lockAttempt(tx, ch.id, userId);
 		const list = a.readings as ReadingKey[];
 		if (a.result) return list.length;
+		// A retried request (the reply was lost) carries the same key: it was counted already.
+		if (key.key && list.some((r) => r.key === key.key)) return list.length;
 		if (list.length >= MAX_READINGS) throw new LearnError('too_many_readings', `You have taken ${MAX_READINGS} readings on this challenge. Name the fault now to see how you did.`, 409);
 		await tx.update(benchAttempt).set({ readings: [...list, key] }).where(and(eq(benchAttempt.challengeId, ch.id), eq(benchAttempt.userId, userId)));
 		return list.length + 1;
