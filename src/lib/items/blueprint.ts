@@ -66,6 +66,11 @@ export function findSkill(id: string): Skill | undefined {
 }
 
 /** True for a known area id. */
+/** An area's title for people ("Reading diagrams and current paths"); the id itself when it is unknown. */
+export function areaTitle(id: string): string {
+	return AREAS.find((a) => a.id === id)?.title ?? id;
+}
+
 export function isArea(id: string): id is AreaId {
 	return AREA_IDS.has(id);
 }

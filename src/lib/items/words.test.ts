@@ -2,7 +2,7 @@
 // trade show volts to hundredths: common practice); these tests pin what a learner reads.
 import { describe, expect, it } from 'vitest';
 import { parseCircuit } from '../circuit';
-import { faultWords, tidyNumbers } from './words';
+import { faultText, faultWords, namesWire, tidyNumbers } from './words';
 
 describe('tidyNumbers', () => {
 	it('rounds amps and watts to 3 significant figures and volts and ohms to 2 decimals', () => {
@@ -37,5 +37,14 @@ wires:
 		expect(faultWords({ circuit }, 'open:W2')).toBe('an open in wire W2');
 		expect(faultWords({ circuit }, 'high-resistance:G1:0.5')).toBe('0.5 Ω of corrosion at ground G1');
 		expect(faultWords({ circuit }, 'open:F1')).toBe('fuse F1 open');
+	});
+	it('falls back to the fault as written when there is no circuit or the fault does not parse', () => {
+		expect(faultText({ circuit }, 'open:W2')).toBe('an open in wire W2');
+		expect(faultText(null, 'open:W2')).toBe('open:W2');
+		expect(faultText({ circuit }, 'melted:W2')).toBe('melted:W2');
+	});
+	it('tells when a text names a wire by id', () => {
+		expect(namesWire('an open in wire W11')).toBe(true);
+		expect(namesWire('0.5 Ω at ground G1; 12 W lamp; SW3 closed')).toBe(false);
 	});
 });

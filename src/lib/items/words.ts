@@ -3,6 +3,21 @@
  */
 import { parseFault, type Circuit } from '../circuit';
 
+/** True when a text names a wire by its id (W3): the diagram beside it should then draw wire ids. */
+export function namesWire(text: string): boolean {
+	return /\bW\d+\b/.test(text);
+}
+
+/** `faultWords` for screens: the fault's plain text when there is no circuit or the fault cannot be read. */
+export function faultText(ctx: { circuit: Pick<Circuit, 'parts' | 'wires'> } | null, fault: string): string {
+	if (!ctx) return fault;
+	try {
+		return faultWords(ctx, fault);
+	} catch {
+		return fault;
+	}
+}
+
 /** A fault in words, for stems, option labels and feedback captions (only the circuit's parts and wires are read). */
 export function faultWords(ctx: { circuit: Pick<Circuit, 'parts' | 'wires'> }, fault: string): string {
 	const f = parseFault(fault);
