@@ -1,7 +1,8 @@
 /**
  * Authoring items in the app: preview (the build of one markdown item, keyed by the engine), drafts,
  * and submitting for review. An author edits only their own items: drafts, items sent back with changes
- * requested, and published items (as a new draft version); the id in the front matter is the item's id and cannot change once saved.
+ * requested, and published items (as a new draft version); the id in the front matter is the item's id
+ * and cannot change once saved.
  */
 import { readdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
